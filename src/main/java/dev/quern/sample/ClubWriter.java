@@ -7,6 +7,7 @@ import java.sql.Statement;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
+import java.util.function.Function;
 import java.util.function.ToLongFunction;
 
 /**
@@ -49,7 +50,7 @@ final class ClubWriter {
 
     /** Lives come in member order and each member's rows in their own order, so a stable sort on time suffices. */
     private static <T> List<T> inTimeOrder(List<MemberLife> lives,
-            java.util.function.Function<MemberLife, List<T>> rows, ToLongFunction<T> time) {
+            Function<MemberLife, List<T>> rows, ToLongFunction<T> time) {
         List<T> all = new ArrayList<>();
         for (MemberLife life : lives) {
             all.addAll(rows.apply(life));

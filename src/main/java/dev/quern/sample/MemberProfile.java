@@ -83,10 +83,6 @@ record MemberProfile(
         return StrictMath.exp(-(second - fadeFrom) / (fadeDays * Timeline.DAY));
     }
 
-    boolean isFading() {
-        return fadeFrom != Long.MAX_VALUE;
-    }
-
     /** The plan a member picks on joining, matched loosely to how much they expect to ride. */
     Plan firstPlan(SplittableRandom random) {
         if (ridesPerDay > 0.25) {

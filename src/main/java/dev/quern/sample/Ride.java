@@ -6,9 +6,4 @@ package dev.quern.sample;
  */
 record Ride(int memberId, long startedAt, long endedAt, int startStationId, int endStationId,
         double distanceKm, double durationMin, boolean pinned) {
-
-    /** Average speed; above about 45 km/h the bike cannot have been ridden. */
-    double kilometresPerHour() {
-        return distanceKm / (durationMin / 60.0);
-    }
 }

@@ -13,7 +13,7 @@ import java.util.SplittableRandom;
 final class RideMaker {
 
     /** Share of rides whose speed gives away that the bike travelled on a train or in a car. */
-    static final double ON_A_TRAIN = 0.003;
+    private static final double ON_A_TRAIN = 0.003;
     /** Chance, per member and month end, of a ride pinned to an instant around that month end's midnight. */
     private static final double PINNED_PER_MONTH_END = 0.008;
 

@@ -2,6 +2,7 @@ package dev.quern.sample;
 
 import java.time.DayOfWeek;
 import java.time.LocalDate;
+import java.time.temporal.ChronoUnit;
 import java.util.SplittableRandom;
 
 /**
@@ -22,7 +23,7 @@ final class Seasons {
     }
 
     static Seasons draw(SplittableRandom random) {
-        int days = (int) Timeline.FIRST_DAY.until(Timeline.LAST_DAY.plusDays(1), java.time.temporal.ChronoUnit.DAYS);
+        int days = (int) Timeline.FIRST_DAY.until(Timeline.LAST_DAY.plusDays(1), ChronoUnit.DAYS);
         double[] weather = new double[days];
         for (int i = 0; i < days; i++) {
             // About one day in six is wet enough to keep most riders at home.

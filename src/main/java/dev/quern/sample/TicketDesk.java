@@ -1,6 +1,7 @@
 package dev.quern.sample;
 
 import java.util.ArrayList;
+import java.util.Comparator;
 import java.util.List;
 import java.util.SplittableRandom;
 
@@ -39,7 +40,7 @@ final class TicketDesk {
                 tickets.add(answer(member, at, "billing", random));
             }
         }
-        tickets.sort(java.util.Comparator.comparingLong(Ticket::openedAt));
+        tickets.sort(Comparator.comparingLong(Ticket::openedAt));
         return tickets;
     }
 

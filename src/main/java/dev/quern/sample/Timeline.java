@@ -2,6 +2,7 @@ package dev.quern.sample;
 
 import java.time.LocalDate;
 import java.time.LocalDateTime;
+import java.time.LocalTime;
 import java.time.ZoneOffset;
 import java.time.format.DateTimeFormatter;
 
@@ -14,14 +15,13 @@ final class Timeline {
 
     static final LocalDate FIRST_DAY = LocalDate.of(2024, 1, 1);
     static final LocalDate LAST_DAY = LocalDate.of(2025, 12, 31);
-    /** Late enough that even the last joiners have a few weeks of history before the data ends. */
+    /** Early enough that even the last joiners have a month of history before the data ends. */
     static final LocalDate LAST_JOIN_DAY = LocalDate.of(2025, 11, 30);
 
     static final long MINUTE = 60;
     static final long HOUR = 60 * MINUTE;
     static final long DAY = 24 * HOUR;
 
-    static final long START = secondOf(FIRST_DAY);
     /** Every event happens strictly before this instant, so the last one possible is 2025-12-31 23:59:59. */
     static final long END = secondOf(LAST_DAY.plusDays(1));
 
@@ -31,15 +31,11 @@ final class Timeline {
     }
 
     static long secondOf(LocalDate day) {
-        return day.toEpochSecond(java.time.LocalTime.MIDNIGHT, ZoneOffset.UTC);
+        return day.toEpochSecond(LocalTime.MIDNIGHT, ZoneOffset.UTC);
     }
 
     static LocalDate dayOf(long second) {
         return LocalDate.ofEpochDay(Math.floorDiv(second, DAY));
-    }
-
-    static long secondOfDay(long second) {
-        return Math.floorMod(second, DAY);
     }
 
     static String timestamp(long second) {
