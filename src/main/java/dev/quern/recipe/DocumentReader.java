@@ -120,12 +120,12 @@ final class DocumentReader {
     // ---------------------------------------------------------------------------------------- entity
 
     private Optional<EntitySpec> entity(Node node) {
+        int errors = values.errorCount();
         Optional<MappingReader> read = values.mapping(node, forKey("entity"), "entity", ENTITY_KEYS);
         if (read.isEmpty()) {
             return Optional.empty();
         }
         MappingReader m = read.get();
-        int errors = values.errorCount();
         Optional<Name> table = m.required("table", "the table of what one row describes, e.g. members")
                 .flatMap(n -> values.name(n, "table", forKey("table")));
         Optional<Name> key = m.required("key", "the column that identifies one row of "
@@ -155,6 +155,7 @@ final class DocumentReader {
     // ---------------------------------------------------------------------------------------- cutoffs
 
     private Optional<CutoffSpec> cutoffs(Node node) {
+        int errors = values.errorCount();
         Optional<MappingReader> read = values.mapping(node, forKey("cutoffs"), "cutoffs", CUTOFF_KEYS);
         if (read.isEmpty()) {
             return Optional.empty();
@@ -172,7 +173,6 @@ final class DocumentReader {
             diagnostics.error(m.position(), "cutoffs need 'every' with 'from' and 'to', or 'dates'");
             return Optional.empty();
         }
-        int errors = values.errorCount();
         Optional<Every> every = m.required("every", "month-end or week-end").flatMap(this::every);
         Optional<Node> fromNode = m.required("from", "the first cutoff date, YYYY-MM-DD");
         Optional<LocalDate> from = fromNode.flatMap(n -> values.date(n, forKey("from")));
@@ -322,12 +322,12 @@ final class DocumentReader {
     // ---------------------------------------------------------------------------------------- label
 
     private Optional<LabelSpec> label(Node node) {
+        int errors = values.errorCount();
         Optional<MappingReader> read = values.mapping(node, forKey("label"), "label", LABEL_KEYS);
         if (read.isEmpty()) {
             return Optional.empty();
         }
         MappingReader m = read.get();
-        int errors = values.errorCount();
         Optional<Name> name = m.required("name", "the column name of the label, e.g. cancels_in_60d")
                 .flatMap(n -> values.name(n, "output", forKey("name")));
         Optional<PathSpec> from = m.required("from", "the path of the rows that make the label, e.g. cancellations")
@@ -389,19 +389,21 @@ final class DocumentReader {
                     + " write two features");
             return Optional.empty();
         }
+        int errors = values.errorCount();
         if (block) {
-            return aggregates(new MappingReader(values.file(), diagnostics, mapping, "feature block", BLOCK_KEYS));
+            return aggregates(new MappingReader(values.file(), diagnostics, mapping, "feature block", BLOCK_KEYS),
+                    errors);
         }
         if (lookup) {
-            return lookup(new MappingReader(values.file(), diagnostics, mapping, "lookup", LOOKUP_KEYS));
+            return lookup(new MappingReader(values.file(), diagnostics, mapping, "lookup", LOOKUP_KEYS), errors);
         }
         values.error(item, "a feature needs 'from' (measures over windows of a path) or 'lookup' (a value as of"
                 + " the cutoff)");
         return Optional.empty();
     }
 
-    private Optional<FeatureSpec> aggregates(MappingReader m) {
-        int errors = values.errorCount();
+    /** A block of measures; {@code errors} is the error count before its mapping was read. */
+    private Optional<FeatureSpec> aggregates(MappingReader m, int errors) {
         Optional<PathSpec> from = m.optional("from").flatMap(n -> path(n, "from"));
         Optional<List<Span>> windows = m.required("windows", "the lookback spans, e.g. [30d, 90d]")
                 .flatMap(this::windows);
@@ -486,8 +488,8 @@ final class DocumentReader {
             values.wrongShape(item, "a measure such as count or sum(amount)", in("measures"));
             return Optional.empty();
         }
-        MappingReader m = values.mapping(item, in("measures"), "measure", MEASURE_KEYS).orElseThrow();
         int errors = values.errorCount();
+        MappingReader m = values.mapping(item, in("measures"), "measure", MEASURE_KEYS).orElseThrow();
         Optional<ScalarNode> measure = m.required("measure", "what to compute, e.g. sum(amount)")
                 .flatMap(n -> values.scalar(n, "a measure such as count or sum(amount)", forKey("measure")));
         Optional<Name> name = m.optional("name")
@@ -500,8 +502,8 @@ final class DocumentReader {
                 .map(spec -> new MeasureSpec(spec.kind(), spec.column(), spec.name(), m.position()));
     }
 
-    private Optional<FeatureSpec> lookup(MappingReader m) {
-        int errors = values.errorCount();
+    /** A lookup; {@code errors} is the error count before its mapping was read. */
+    private Optional<FeatureSpec> lookup(MappingReader m, int errors) {
         Optional<ScalarNode> target = m.optional("lookup")
                 .flatMap(n -> values.scalar(n, "table.column, e.g. plans.plan", forKey("lookup")));
         Optional<TableColumn> parts = target.flatMap(this::tableColumn);

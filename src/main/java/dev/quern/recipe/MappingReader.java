@@ -4,10 +4,12 @@ import dev.quern.Diagnostics;
 import dev.quern.Position;
 import dev.quern.Suggestions;
 import java.util.ArrayList;
+import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.Set;
 import org.yaml.snakeyaml.nodes.MappingNode;
 import org.yaml.snakeyaml.nodes.Node;
 import org.yaml.snakeyaml.nodes.NodeTuple;
@@ -26,6 +28,8 @@ final class MappingReader {
     private final MappingNode node;
     private final String owner;
     private final Map<String, NodeTuple> entries = new LinkedHashMap<>();
+    /** Allowed keys that an unknown key was taken for: their absence is already explained. */
+    private final Set<String> misspelled = new HashSet<>();
 
     /**
      * @param owner   what the mapping is, for messages: "entity", "feature block", "table rides"
@@ -49,9 +53,11 @@ final class MappingReader {
             } else if (entries.containsKey(key)) {
                 diagnostics.error(at, "duplicate key " + Names.quote(key) + " in " + owner + ": write each key once");
             } else if (!allowed.isEmpty() && !allowed.contains(key)) {
-                String hint = Suggestions.hint(key, allowed);
+                Optional<String> meant = Suggestions.closest(key, allowed);
+                meant.ifPresent(misspelled::add);
                 diagnostics.error(at, "unknown key " + Names.quote(key) + " in " + owner
-                        + (hint.isEmpty() ? ": keys here are " + String.join(", ", allowed) : hint));
+                        + meant.map(m -> " (did you mean " + m + "?)")
+                                .orElse(": keys here are " + String.join(", ", allowed)));
             } else {
                 entries.put(key, tuple);
             }
@@ -74,10 +80,13 @@ final class MappingReader {
         return Optional.ofNullable(entries.get(key)).map(NodeTuple::getValueNode);
     }
 
-    /** The value of a key that must be there; when it is not, an error at the mapping saying what it is for. */
+    /**
+     * The value of a key that must be there; when it is not, an error at the mapping saying what it is for,
+     * unless a misspelling of the key was already reported.
+     */
     Optional<Node> required(String key, String purpose) {
         Optional<Node> value = optional(key);
-        if (value.isEmpty()) {
+        if (value.isEmpty() && !misspelled.contains(key)) {
             diagnostics.error(position(), owner + " needs " + Names.quote(key) + ": " + purpose);
         }
         return value;

@@ -63,8 +63,8 @@ public final class RecipeReader {
         Node root = compose(fileLabel, text, diagnostics);
         Optional<Recipe> recipe = Optional.empty();
         if (root == null && diagnostics.isEmpty()) {
-            diagnostics.error(new Position(fileLabel, 1, 1), "the recipe is empty: start with recipe, source,"
-                    + " entity, cutoffs, tables and features (see docs/recipe.md)");
+            diagnostics.error(new Position(fileLabel, 1, 1), "the recipe is empty: write recipe, source, entity,"
+                    + " cutoffs, tables and features");
         } else if (root != null) {
             recipe = new DocumentReader(fileLabel, diagnostics).read(root, text);
         }
