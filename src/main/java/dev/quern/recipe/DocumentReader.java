@@ -105,12 +105,13 @@ final class DocumentReader {
     }
 
     private Optional<ZoneId> timeZone(Node node) {
-        return values.text(node, "a time zone such as Europe/Amsterdam", forKey("time-zone")).flatMap(text -> {
+        return values.scalar(node, "a time zone such as Europe/Amsterdam", forKey("time-zone")).flatMap(s -> {
+            String text = s.getValue();
             try {
                 return Optional.of(ZoneId.of(text));
             } catch (DateTimeException e) {
                 String hint = Suggestions.hint(text, new TreeSet<>(ZoneId.getAvailableZoneIds()));
-                values.error(node, "unknown time zone " + Names.quote(text)
+                diagnostics.error(values.start(s), "unknown time zone " + Names.quote(text)
                         + (hint.isEmpty() ? ": write an IANA zone id such as Europe/Amsterdam" : hint));
                 return Optional.empty();
             }
