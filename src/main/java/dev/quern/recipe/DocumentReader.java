@@ -304,7 +304,8 @@ final class DocumentReader {
             for (NodeTuple entry : m.entries()) {
                 ScalarNode key = (ScalarNode) entry.getKeyNode();
                 Optional<Name> column = Names.plain(key.getValue(), values.start(key), "link column", diagnostics);
-                Optional<Name> target = values.name(entry.getValueNode(), "table", "for link " + Names.quote(key.getValue()));
+                Optional<Name> target =
+                        values.name(entry.getValueNode(), "table", "for link " + Names.quote(key.getValue()));
                 if (column.isPresent() && target.isPresent()) {
                     out.add(new Link(column.get(), target.get()));
                 }
@@ -337,7 +338,9 @@ final class DocumentReader {
                 .flatMap(n -> values.span(n, forKey("horizon")));
         horizon.filter(h -> h.amount() == 0).ifPresent(h -> diagnostics.error(h.position(),
                 "horizon " + h.label() + " is empty: a label horizon must be longer than zero, e.g. 60d"));
-        Optional<Span> gap = m.optional("gap").map(n -> values.span(n, forKey("gap"))).orElse(Optional.of(Span.days(0)));
+        Optional<Span> gap = m.optional("gap")
+                .map(n -> values.span(n, forKey("gap")))
+                .orElse(Optional.of(Span.days(0)));
         Optional<MeasureParser.LabelValue> value = m.required("value", "exists, count or sum(column)")
                 .flatMap(n -> values.scalar(n, "exists, count or sum(column)", forKey("value")))
                 .flatMap(s -> MeasureParser.label(s.getValue(), values.locator(s), diagnostics));

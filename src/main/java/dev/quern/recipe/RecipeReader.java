@@ -16,6 +16,7 @@ import java.util.List;
 import java.util.Optional;
 import org.yaml.snakeyaml.LoaderOptions;
 import org.yaml.snakeyaml.Yaml;
+import org.yaml.snakeyaml.error.Mark;
 import org.yaml.snakeyaml.error.MarkedYAMLException;
 import org.yaml.snakeyaml.error.YAMLException;
 import org.yaml.snakeyaml.nodes.Node;
@@ -80,7 +81,8 @@ public final class RecipeReader {
         try {
             return new Yaml(options).compose(new StringReader(text));
         } catch (MarkedYAMLException e) {
-            Position at = YamlNodes.position(file, e.getProblemMark() != null ? e.getProblemMark() : e.getContextMark());
+            Mark mark = e.getProblemMark() != null ? e.getProblemMark() : e.getContextMark();
+            Position at = YamlNodes.position(file, mark);
             diagnostics.error(at, YamlErrors.message(e));
         } catch (YAMLException e) {
             diagnostics.error(new Position(file, 0, 0), "invalid YAML: " + e.getMessage());

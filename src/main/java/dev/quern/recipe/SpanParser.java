@@ -21,7 +21,8 @@ final class SpanParser {
     static Optional<Span> parse(String text, Position at, Diagnostics diagnostics) {
         Matcher m = SPAN.matcher(text);
         if (!m.matches()) {
-            diagnostics.error(at, Names.quote(text) + " is not a span: write a whole number and d, w, m or y, e.g. 30d");
+            diagnostics.error(at, Names.quote(text)
+                    + " is not a span: write a whole number and d, w, m or y, e.g. 30d");
             return Optional.empty();
         }
         String digits = m.group(1);

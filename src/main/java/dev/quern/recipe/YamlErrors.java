@@ -47,7 +47,9 @@ final class YamlErrors {
     }
 
     private static String started(Mark mark) {
-        return mark == null ? "" : " (opened at line " + (mark.getLine() + 1) + ", column " + (mark.getColumn() + 1) + ")";
+        return mark == null
+                ? ""
+                : " (opened at line " + (mark.getLine() + 1) + ", column " + (mark.getColumn() + 1) + ")";
     }
 
     private static String tidy(String text) {
