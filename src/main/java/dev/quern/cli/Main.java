@@ -1,11 +1,70 @@
 package dev.quern.cli;
 
-/** Placeholder until the commands land. */
-public final class Main {
-    private Main() {
-    }
+import dev.quern.Diagnostic;
+import dev.quern.Failure;
+import dev.quern.QuernException;
+import dev.quern.Version;
+import java.io.PrintWriter;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+
+/** The {@code quern} command: a thin shell over {@link dev.quern.Quern}. */
+@Command(name = "quern", mixinStandardHelpOptions = true, versionProvider = Main.VersionProvider.class,
+        description = "Compiles a feature recipe into SQL and builds a point-in-time modelling table.",
+        subcommands = {BuildCommand.class, CheckCommand.class, SqlCommand.class, SampleCommand.class,
+                CommandLine.HelpCommand.class})
+public final class Main implements Runnable {
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
 
     public static void main(String[] args) {
-        System.exit(0);
+        System.exit(run(new PrintWriter(System.out, true), new PrintWriter(System.err, true), args));
+    }
+
+    /** Runs one command line; returns its exit code. */
+    public static int run(PrintWriter out, PrintWriter err, String... args) {
+        CommandLine cli = new CommandLine(new Main());
+        cli.setOut(out);
+        cli.setErr(err);
+        cli.setExecutionExceptionHandler((e, line, parsed) -> report(e, err));
+        cli.setParameterExceptionHandler((e, args1) -> {
+            err.println("quern: " + e.getMessage());
+            CommandLine.UnmatchedArgumentException.printSuggestions(e, err);
+            err.println("Try 'quern " + (e.getCommandLine().getCommandName().equals("quern") ? ""
+                    : e.getCommandLine().getCommandName() + " ") + "--help'.");
+            return Failure.USAGE.exitCode();
+        });
+        return cli.execute(args);
+    }
+
+    /** The one place where failures become messages and exit codes. */
+    static int report(Exception e, PrintWriter err) {
+        if (e instanceof QuernException q) {
+            for (Diagnostic d : q.diagnostics()) {
+                err.println(d.render());
+            }
+            return q.failure().exitCode();
+        }
+        err.println("quern: internal error: " + e);
+        if (System.getenv("QUERN_DEBUG") != null) {
+            e.printStackTrace(err);
+        } else {
+            err.println("Set QUERN_DEBUG=1 to see where it happened, and please report it.");
+        }
+        return Failure.INTERNAL.exitCode();
+    }
+
+    @Override
+    public void run() {
+        throw new CommandLine.ParameterException(spec.commandLine(), "name a command: build, check, sql or sample");
+    }
+
+    /** Reports the version Maven stamped into the jar. */
+    static final class VersionProvider implements CommandLine.IVersionProvider {
+        @Override
+        public String[] getVersion() {
+            return new String[] {"quern " + Version.current()};
+        }
     }
 }

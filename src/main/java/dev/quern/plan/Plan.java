@@ -1,0 +1,54 @@
+package dev.quern.plan;
+
+import dev.quern.schema.Engine;
+import java.time.LocalDate;
+import java.time.ZoneId;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+import java.util.Optional;
+
+/**
+ * The logical plan of a build: the cohort, one block per scanned path, the lookups and the label, and
+ * the output columns in their final order (key, cutoff, features in recipe order, label last). It holds
+ * no SQL: the sql stage renders it for an engine.
+ */
+public record Plan(String recipeName, Engine engine, Optional<ZoneId> timeZone, List<LocalDate> cutoffs,
+                   Cohort cohort, List<Block> blocks, List<Lookup> lookups, Optional<LabelPlan> label,
+                   List<OutputColumn> columns) {
+
+    public Plan {
+        Objects.requireNonNull(recipeName, "recipeName");
+        Objects.requireNonNull(engine, "engine");
+        Objects.requireNonNull(timeZone, "timeZone");
+        cutoffs = List.copyOf(cutoffs);
+        Objects.requireNonNull(cohort, "cohort");
+        blocks = List.copyOf(blocks);
+        lookups = List.copyOf(lookups);
+        Objects.requireNonNull(label, "label");
+        columns = List.copyOf(columns);
+    }
+
+    /** Every boundary some part of the plan compares with, once each, in a stable order. */
+    public List<Boundary> boundaries() {
+        Map<String, Boundary> out = new LinkedHashMap<>();
+        Boundary end = new Boundary.CutoffEnd();
+        out.put(end.column(), end);
+        for (Block b : blocks) {
+            for (var w : b.windows()) {
+                Boundary start = new Boundary.WindowStart(w);
+                out.putIfAbsent(start.column(), start);
+            }
+        }
+        label.ifPresent(l -> {
+            out.put(l.start().column(), l.start());
+            out.put(l.end().column(), l.end());
+        });
+        return List.copyOf(out.values());
+    }
+
+    public List<OutputColumn> features() {
+        return columns.stream().filter(c -> c.role() == Role.FEATURE).toList();
+    }
+}

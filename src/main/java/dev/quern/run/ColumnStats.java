@@ -1,0 +1,91 @@
+package dev.quern.run;
+
+import dev.quern.schema.ValueType;
+import java.util.Optional;
+
+/**
+ * Running statistics of one output column, in constant memory: how many values are empty, and for
+ * numbers the smallest, largest and mean (updated stably, as Welford did), for other values the smallest
+ * and largest text.
+ */
+public final class ColumnStats {
+
+    private final String column;
+    private final ValueType type;
+    private long rows;
+    private long empty;
+    private long numbers;
+    private double mean;
+    private double min = Double.POSITIVE_INFINITY;
+    private double max = Double.NEGATIVE_INFINITY;
+    private String minText;
+    private String maxText;
+
+    public ColumnStats(String column, ValueType type) {
+        this.column = column;
+        this.type = type;
+    }
+
+    void add(Object value, String text) {
+        rows++;
+        if (value == null) {
+            empty++;
+            return;
+        }
+        if (type.isNumber()) {
+            Double d = ValueFormat.number(value);
+            if (d != null) {
+                numbers++;
+                mean += (d - mean) / numbers;
+                min = Math.min(min, d);
+                max = Math.max(max, d);
+            }
+        } else {
+            if (minText == null || text.compareTo(minText) < 0) {
+                minText = text;
+            }
+            if (maxText == null || text.compareTo(maxText) > 0) {
+                maxText = text;
+            }
+        }
+    }
+
+    public String column() {
+        return column;
+    }
+
+    public ValueType type() {
+        return type;
+    }
+
+    public long rows() {
+        return rows;
+    }
+
+    public long empty() {
+        return empty;
+    }
+
+    /** Share of rows without a value, 0 for an empty matrix. */
+    public double emptyShare() {
+        return rows == 0 ? 0.0 : (double) empty / rows;
+    }
+
+    public Optional<String> min() {
+        return type.isNumber() ? number(min) : Optional.ofNullable(minText);
+    }
+
+    public Optional<String> max() {
+        return type.isNumber() ? number(max) : Optional.ofNullable(maxText);
+    }
+
+    public Optional<String> mean() {
+        return type.isNumber() && numbers > 0 ? Optional.of(ValueFormat.format(mean, ValueType.DECIMAL))
+                : Optional.empty();
+    }
+
+    private Optional<String> number(double v) {
+        return numbers == 0 ? Optional.empty() : Optional.of(ValueFormat.format(v, type == ValueType.INTEGER
+                ? ValueType.INTEGER : ValueType.DECIMAL));
+    }
+}

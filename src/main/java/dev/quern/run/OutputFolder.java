@@ -1,0 +1,98 @@
+package dev.quern.run;
+
+import dev.quern.QuernException;
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.io.Writer;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * The folder a build writes to. Every output goes first to a hidden temporary file beside its final name;
+ * only when all are complete are they renamed into place, so a failed build leaves no half-written output
+ * (and an earlier build's files stay as they were).
+ */
+public final class OutputFolder implements AutoCloseable {
+
+    private final Path folder;
+    private final Map<String, Path> pending = new LinkedHashMap<>();
+    private boolean committed;
+
+    public OutputFolder(Path folder) {
+        this.folder = folder;
+        try {
+            Files.createDirectories(folder);
+        } catch (IOException e) {
+            throw QuernException.output("cannot create the output folder " + folder + ": " + e.getMessage(), e);
+        }
+    }
+
+    public Path folder() {
+        return folder;
+    }
+
+    /** A writer to the temporary file that becomes {@code name} on commit. */
+    public Writer open(String name) {
+        try {
+            Path temp = Files.createTempFile(folder, "." + name + ".", ".tmp");
+            pending.put(name, temp);
+            return Files.newBufferedWriter(temp, StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw QuernException.output("cannot write in " + folder + ": " + e.getMessage(), e);
+        }
+    }
+
+    /** Writes a whole text output. */
+    public void write(String name, String text) {
+        try (Writer w = open(name)) {
+            w.write(text);
+        } catch (IOException e) {
+            throw QuernException.output("cannot write " + name + " in " + folder + ": " + e.getMessage(), e);
+        }
+    }
+
+    /** Moves every pending file to its final name; returns the final paths in the order written. */
+    public List<Path> commit() {
+        List<Path> done = new ArrayList<>();
+        try {
+            for (Map.Entry<String, Path> e : pending.entrySet()) {
+                Path target = folder.resolve(e.getKey());
+                try {
+                    Files.move(e.getValue(), target, StandardCopyOption.ATOMIC_MOVE,
+                            StandardCopyOption.REPLACE_EXISTING);
+                } catch (AtomicMoveNotSupportedException notAtomic) {
+                    Files.move(e.getValue(), target, StandardCopyOption.REPLACE_EXISTING);
+                }
+                done.add(target);
+            }
+        } catch (IOException e) {
+            throw QuernException.output("cannot move outputs into " + folder + ": " + e.getMessage(), e);
+        }
+        pending.clear();
+        committed = true;
+        return done;
+    }
+
+    /** Removes whatever was not committed. */
+    @Override
+    public void close() {
+        if (committed) {
+            return;
+        }
+        for (Path temp : pending.values()) {
+            try {
+                Files.deleteIfExists(temp);
+            } catch (IOException e) {
+                throw new UncheckedIOException("cannot remove the temporary file " + temp, e);
+            }
+        }
+        pending.clear();
+    }
+}

@@ -1,0 +1,105 @@
+package dev.quern.run;
+
+import dev.quern.schema.ValueType;
+import java.math.BigDecimal;
+import java.time.format.DateTimeFormatter;
+
+/**
+ * How values are written to the matrix: the same text for the same value whatever the engine and driver
+ * returned, so matrices compare byte for byte across engines. Empty text means no value.
+ */
+public final class ValueFormat {
+
+    private static final DateTimeFormatter TIMESTAMP = DateTimeFormatter.ofPattern("yyyy-MM-dd HH:mm:ss");
+
+    private ValueFormat() {
+    }
+
+    public static String format(Object value, ValueType type) {
+        if (value == null) {
+            return "";
+        }
+        return switch (type) {
+            case INTEGER -> integer(value);
+            case DECIMAL -> decimal(value);
+            case DATE -> date(value);
+            case TIMESTAMP -> timestamp(value);
+            case BOOLEAN -> bool(value);
+            default -> value.toString();
+        };
+    }
+
+    /** The value as a double, for statistics; null when it is none. */
+    public static Double number(Object value) {
+        if (value instanceof Number n) {
+            return n.doubleValue();
+        }
+        if (value instanceof Boolean b) {
+            return b ? 1.0 : 0.0;
+        }
+        if (value instanceof String s && !s.isEmpty()) {
+            try {
+                return Double.parseDouble(s);
+            } catch (NumberFormatException e) {
+                return null;
+            }
+        }
+        return null;
+    }
+
+    private static String integer(Object value) {
+        if (value instanceof BigDecimal b) {
+            return b.toBigInteger().toString();
+        }
+        if (value instanceof Double || value instanceof Float) {
+            double d = ((Number) value).doubleValue();
+            if (d == Math.rint(d) && Math.abs(d) < 9.0e15) {
+                return Long.toString((long) d);
+            }
+            return decimal(value);
+        }
+        return value.toString();
+    }
+
+    /** The shortest decimal that reads back as the same double, without exponent, without a trailing .0. */
+    private static String decimal(Object value) {
+        double d = value instanceof Number n ? n.doubleValue() : Double.parseDouble(value.toString());
+        if (Double.isNaN(d) || Double.isInfinite(d)) {
+            return Double.toString(d);
+        }
+        if (d == 0.0) {
+            return "0";
+        }
+        return BigDecimal.valueOf(d).stripTrailingZeros().toPlainString();
+    }
+
+    private static String date(Object value) {
+        if (value instanceof java.sql.Date d) {
+            return d.toLocalDate().toString();
+        }
+        if (value instanceof java.time.LocalDate d) {
+            return d.toString();
+        }
+        if (value instanceof java.sql.Timestamp t) {
+            return t.toLocalDateTime().toLocalDate().toString();
+        }
+        return value.toString();
+    }
+
+    private static String timestamp(Object value) {
+        if (value instanceof java.sql.Timestamp t) {
+            return TIMESTAMP.format(t.toLocalDateTime());
+        }
+        if (value instanceof java.time.LocalDateTime t) {
+            return TIMESTAMP.format(t);
+        }
+        return value.toString();
+    }
+
+    private static String bool(Object value) {
+        if (value instanceof Boolean b) {
+            return b ? "1" : "0";
+        }
+        return value.toString();
+    }
+}

@@ -1,0 +1,32 @@
+package dev.quern.sql;
+
+import dev.quern.schema.Engine;
+import dev.quern.schema.TimeStorage;
+import org.jooq.Field;
+
+/** PostgreSQL, and DuckDB, which follows PostgreSQL's date arithmetic and aggregates. */
+final class PostgresSql extends EngineSql {
+
+    private final Engine engine;
+
+    PostgresSql(Engine engine) {
+        this.engine = engine;
+    }
+
+    @Override
+    Engine engine() {
+        return engine;
+    }
+
+    /** Subtracting two DATE values gives an integer number of days in both engines. */
+    @Override
+    Field<Object> daysFrom(Field<Object> time, TimeStorage storage, Field<Object> cutoff) {
+        return org.jooq.impl.DSL.field("({0} - {1})", Object.class, cutoff, dayOf(time, storage));
+    }
+
+    /** stddev_samp uses a stable update (Youngs-Cramer in PostgreSQL, Welford in DuckDB). */
+    @Override
+    boolean hasStableStddev() {
+        return true;
+    }
+}
