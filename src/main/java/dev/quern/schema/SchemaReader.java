@@ -99,7 +99,7 @@ public final class SchemaReader {
     private static void requireColumn(TableInfo table, Name column, String role, Diagnostics problems) {
         if (table.column(column.text()).isEmpty()) {
             problems.error(column.position(), "table " + table.name() + " has no column '" + column.text()
-                    + "' (named as " + role + ")" + Suggestions.hint(column.text(), table.columns().keySet()));
+                    + "' to serve as " + role + Suggestions.hint(column.text(), table.columns().keySet()));
         }
     }
 

@@ -84,8 +84,8 @@ public final class SqlCompiler {
         }
         var ordered = query.orderBy(Names.field(Names.COHORT, Names.CUTOFF), Names.field(Names.COHORT, Names.KEY));
         String flat = sql.renderInlined(ordered);
-        String formatted = DSL.using(sql.dialect(), sql.settings().withRenderFormatted(true))
-                .renderInlined(ordered);
+        String formatted = DSL.using(sql.dialect(),
+                org.jooq.conf.SettingsTools.clone(sql.settings()).withRenderFormatted(true)).renderInlined(ordered);
         return new CompiledQuery(plan, flat, formatted, names);
     }
 
