@@ -50,7 +50,8 @@ final class Describe {
             meaning = source.name() + " of the latest " + table + " row at or before the end of the cutoff day.";
             whenEmpty = "empty when there is no such row";
         }
-        return new OutputColumn(column, Role.FEATURE, source.type(), meaning, List.of(table + "." + source.name()),
+        return new OutputColumn(column, Role.FEATURE, source.type(), capitalised(meaning),
+                List.of(table + "." + source.name()),
                 Optional.empty(), Optional.empty(), whenEmpty, spec.position());
     }
 
