@@ -46,6 +46,7 @@ public final class Planner {
     }
 
     private Plan plan() {
+        refuseUnbuilt();
         Cohort cohort = cohort();
         List<OutputColumn> columns = new ArrayList<>();
         columns.add(keyColumn(cohort));
@@ -213,6 +214,24 @@ public final class Planner {
         name(label.column(), spec.name().position());
         columns.add(Describe.label(label, spec.position()));
         return Optional.of(label);
+    }
+
+    /** Parts of the recipe language the plan stage does not build yet: refused, never silently ignored. */
+    private void refuseUnbuilt() {
+        recipe.entity().where().ifPresent(w -> unbuilt(w.start(), "a cohort 'where'"));
+        recipe.label().flatMap(LabelSpec::where).ifPresent(w -> unbuilt(w.start(), "a label 'where'"));
+        recipe.rules().forEach(r -> unbuilt(r.position(), "rules"));
+        for (FeatureSpec f : recipe.features()) {
+            if (f instanceof FeatureSpec.Derived d) {
+                unbuilt(d.position(), "derived columns");
+            } else if (f instanceof FeatureSpec.Aggregates a) {
+                a.where().ifPresent(w -> unbuilt(w.start(), "a block 'where'"));
+            }
+        }
+    }
+
+    private void unbuilt(Position at, String what) {
+        problems.error(at, what + " cannot be built yet by this version of Quern");
     }
 
     /** Claims an output name; a second claim is a mistake reported at both places. */
