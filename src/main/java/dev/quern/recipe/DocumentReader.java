@@ -31,10 +31,12 @@ import org.yaml.snakeyaml.nodes.ScalarNode;
 final class DocumentReader {
 
     static final List<String> TOP_KEYS =
-            List.of("recipe", "source", "time-zone", "entity", "cutoffs", "tables", "rules", "label", "features");
+            List.of("recipe", "source", "time-zone", "entity", "cutoffs", "tables", "rules", "label", "features",
+                    "encode", "split", "audit");
     static final List<String> ENTITY_KEYS = List.of("table", "key", "since", "until", "where");
     static final List<String> CUTOFF_KEYS = List.of("every", "from", "to", "dates");
-    static final List<String> TABLE_KEYS = List.of("key", "time", "history", "links", "identifiers");
+    static final List<String> TABLE_KEYS =
+            List.of("key", "time", "history", "links", "identifiers", "updated", "sensitive", "filled");
     static final List<String> HISTORY_KEYS = List.of("from", "to");
     static final List<String> LABEL_KEYS = List.of("name", "from", "horizon", "gap", "value", "where");
     static final List<String> BLOCK_KEYS = List.of("from", "windows", "measures", "prefix", "where");
@@ -78,13 +80,19 @@ final class DocumentReader {
         Optional<LabelSpec> label = m.optional("label").flatMap(this::label);
         Optional<List<FeatureSpec>> features = m.required("features", "the list of features to compute")
                 .flatMap(this::features);
+        ModellingReader modelling = new ModellingReader(values);
+        Optional<List<EncodingSpec>> encodings = m.optional("encode").map(modelling::encodings)
+                .orElse(Optional.of(List.of()));
+        Optional<Optional<SplitSpec>> split = m.optional("split").map(n -> modelling.split(n).map(Optional::of))
+                .orElse(Optional.of(Optional.empty()));
+        Optional<AuditSpec> audit = m.optional("audit").map(modelling::audit).orElse(Optional.of(AuditSpec.DEFAULT));
         references.check();
         if (!diagnostics.isEmpty()) {
             return Optional.empty();
         }
         return Optional.of(new Recipe(values.file(), text, name.orElseThrow(), source.orElseThrow(), timeZone,
                 entity.orElseThrow(), cutoffs.orElseThrow(), tables.orElseThrow(), rules.orElseThrow(), label,
-                features.orElseThrow()));
+                features.orElseThrow(), encodings.orElseThrow(), split.orElseThrow(), audit.orElseThrow()));
     }
 
     private Optional<Name> recipeName(Node node) {
@@ -284,8 +292,12 @@ final class DocumentReader {
                     + " has a 'time', a table of rows in force from/to has a 'history'; keep one");
         }
         List<Link> links = m.optional("links").map(n -> links(name, n)).orElse(List.of());
-        List<Name> identifiers = m.optional("identifiers").map(this::identifiers).orElse(List.of());
-        return Optional.of(new TableSpec(name, key, time, history, links, identifiers, name.position()));
+        List<Name> identifiers = m.optional("identifiers").map(n -> columns(n, "identifiers")).orElse(List.of());
+        Optional<Name> updated = m.optional("updated").flatMap(n -> values.name(n, "column", forKey("updated")));
+        List<Name> sensitive = m.optional("sensitive").map(n -> columns(n, "sensitive")).orElse(List.of());
+        List<FilledAt> filled = m.optional("filled").map(n -> filled(name, n)).orElse(List.of());
+        return Optional.of(new TableSpec(name, key, time, history, links, identifiers, updated, sensitive, filled,
+                name.position()));
     }
 
     private Optional<History> history(Name table, Node node) {
@@ -320,10 +332,29 @@ final class DocumentReader {
         return out;
     }
 
-    private List<Name> identifiers(Node node) {
+    private List<Name> columns(Node node, String key) {
         List<Name> out = new ArrayList<>();
-        values.list(node, "a list of columns", forKey("identifiers")).ifPresent(items -> items.forEach(
-                item -> values.name(item, "column", in("identifiers")).ifPresent(out::add)));
+        values.list(node, "a list of columns", forKey(key)).ifPresent(items -> items.forEach(
+                item -> values.name(item, "column", in(key)).ifPresent(out::add)));
+        return out;
+    }
+
+    /** {@code filled: { satisfaction: closed_at }}: each column with the time it is written at. */
+    private List<FilledAt> filled(Name table, Node node) {
+        Optional<MappingReader> read =
+                values.mapping(node, forKey("filled"), "filled columns of table " + table.text(), List.of());
+        List<FilledAt> out = new ArrayList<>();
+        read.ifPresent(m -> {
+            for (NodeTuple entry : m.entries()) {
+                ScalarNode key = (ScalarNode) entry.getKeyNode();
+                Optional<Name> column = Names.plain(key.getValue(), values.start(key), "column", diagnostics);
+                Optional<Name> at = values.name(entry.getValueNode(), "column",
+                        "for the time " + Names.quote(key.getValue()) + " is filled at");
+                if (column.isPresent() && at.isPresent()) {
+                    out.add(new FilledAt(column.get(), at.get()));
+                }
+            }
+        });
         return out;
     }
 

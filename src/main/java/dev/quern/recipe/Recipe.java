@@ -23,7 +23,10 @@ public record Recipe(
         Map<String, TableSpec> tables,
         List<RuleSpec> rules,
         Optional<LabelSpec> label,
-        List<FeatureSpec> features) {
+        List<FeatureSpec> features,
+        List<EncodingSpec> encodings,
+        Optional<SplitSpec> split,
+        AuditSpec audit) {
 
     public Recipe {
         Objects.requireNonNull(file, "file");
@@ -37,13 +40,17 @@ public record Recipe(
         rules = List.copyOf(rules);
         Objects.requireNonNull(label, "label");
         features = List.copyOf(features);
+        encodings = List.copyOf(encodings);
+        Objects.requireNonNull(split, "split");
+        Objects.requireNonNull(audit, "audit");
     }
 
     /** A recipe without rules. */
     public Recipe(String file, String text, Name name, Name source, Optional<ZoneId> timeZone, EntitySpec entity,
                   CutoffSpec cutoffs, Map<String, TableSpec> tables, Optional<LabelSpec> label,
                   List<FeatureSpec> features) {
-        this(file, text, name, source, timeZone, entity, cutoffs, tables, List.of(), label, features);
+        this(file, text, name, source, timeZone, entity, cutoffs, tables, List.of(), label, features, List.of(),
+                Optional.empty(), AuditSpec.DEFAULT);
     }
 
     public Optional<TableSpec> table(String name) {
@@ -53,6 +60,6 @@ public record Recipe(
     /** The same recipe reading another source: the command line's {@code --source}. */
     public Recipe withSource(String url) {
         return new Recipe(file, text, name, new Name(url, Position.NONE), timeZone, entity, cutoffs, tables, rules,
-                label, features);
+                label, features, encodings, split, audit);
     }
 }

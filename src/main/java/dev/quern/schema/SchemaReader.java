@@ -94,6 +94,14 @@ public final class SchemaReader {
         for (Name identifier : spec.identifiers()) {
             requireColumn(table, identifier, "an identifier", problems);
         }
+        spec.updated().ifPresent(u -> requireColumn(table, u, "the update time", problems));
+        for (Name sensitive : spec.sensitive()) {
+            requireColumn(table, sensitive, "a sensitive column", problems);
+        }
+        for (var filled : spec.filled()) {
+            requireColumn(table, filled.column(), "a column filled in later", problems);
+            requireColumn(table, filled.at(), "the time it is filled at", problems);
+        }
     }
 
     private static void requireColumn(TableInfo table, Name column, String role, Diagnostics problems) {
@@ -119,6 +127,8 @@ public final class SchemaReader {
             spec.time().ifPresent(t -> add(columns, spec.name().text(), t.text()));
             spec.history().map(History::from).ifPresent(f -> add(columns, spec.name().text(), f.text()));
             spec.history().map(History::to).ifPresent(t -> add(columns, spec.name().text(), t.text()));
+            spec.updated().ifPresent(u -> add(columns, spec.name().text(), u.text()));
+            spec.filled().forEach(f -> add(columns, spec.name().text(), f.at().text()));
         }
         return columns;
     }
