@@ -38,6 +38,10 @@ public final class SchemaReader {
     public SourceSchema read(Recipe recipe) {
         try {
             Map<String, TableInfo> tables = checkDeclarations(recipe);
+            if (engine == Engine.SQLITE) {
+                TextTimeDetector detector = new TextTimeDetector(engine.sql(connection));
+                tables.replaceAll((name, table) -> detector.retype(table));
+            }
             Map<String, TimeColumnFacts> times = new TimeSampler(connection, engine).sample(timeColumns(recipe), tables);
             new KeyChecker(connection, engine).checkUnique(joinKeys(recipe));
             return new SourceSchema(engine, tables, times);
