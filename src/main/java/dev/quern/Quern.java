@@ -6,6 +6,10 @@ import dev.quern.recipe.Recipe;
 import dev.quern.recipe.RecipeReader;
 import dev.quern.report.DataDictionary;
 import dev.quern.report.Provenance;
+import dev.quern.report.RulesReport;
+import dev.quern.run.RuleOutcome;
+import dev.quern.run.RuleRunner;
+import dev.quern.sql.RuleQueries;
 import dev.quern.run.MatrixWriter;
 import dev.quern.run.OutputFolder;
 import dev.quern.run.Progress;
@@ -47,6 +51,7 @@ public final class Quern {
     public static final String DICTIONARY_CSV = "dictionary.csv";
     public static final String DICTIONARY_MD = "dictionary.md";
     public static final String PROVENANCE = "provenance.json";
+    public static final String RULES = "rules.md";
 
     private final Recipe recipe;
     private final Path recipeFolder;
@@ -98,6 +103,10 @@ public final class Quern {
         try (Connection connection = source.open(); OutputFolder out = new OutputFolder(folder)) {
             progress.stage("checking the recipe against " + source.engine().label());
             Compilation compilation = compile(source, connection, timings);
+            progress.stage("checking the data against the recipe's rules");
+            long rulesStarted = System.nanoTime();
+            List<RuleOutcome> rules = RuleRunner.run(RuleQueries.of(compilation.plan()), connection);
+            timings.put("rules", Duration.ofNanos(System.nanoTime() - rulesStarted));
             progress.stage("building " + MATRIX);
             RunResult run;
             try (Writer matrix = out.open(MATRIX)) {
@@ -109,11 +118,12 @@ public final class Quern {
             DataDictionary dictionary = new DataDictionary(compilation.plan(), run);
             out.write(DICTIONARY_CSV, dictionary.csv());
             out.write(DICTIONARY_MD, dictionary.markdown());
-            out.write(PROVENANCE, Provenance.render(compilation.plan(), compilation.schema(), run,
+            out.write(RULES, RulesReport.markdown(recipe.name().text(), rules, compilation.schema(), eventTimes()));
+            out.write(PROVENANCE, Provenance.render(compilation.plan(), compilation.schema(), run, rules,
                     new Provenance.Facts(recipe.file(), sha256(recipe.text()), Version.current(), source.display(),
                             source.file().map(Quern::sha256), builtAt, timings)));
             List<Path> files = out.commit();
-            return new BuildSummary(compilation, run, files);
+            return new BuildSummary(compilation, run, rules, files);
         } catch (IOException e) {
             throw QuernException.output("writing to " + folder + " failed: " + e.getMessage(), e);
         } catch (SQLException e) {
@@ -133,6 +143,13 @@ public final class Quern {
         timings.put("schema", Duration.ofNanos(t1 - t0));
         timings.put("compile", Duration.ofNanos(t2 - t1));
         return new Compilation(recipe, source, schema, plan, query);
+    }
+
+    /** The {@code table.column} of every event time the recipe declares. */
+    private java.util.Set<String> eventTimes() {
+        java.util.Set<String> out = new java.util.LinkedHashSet<>();
+        recipe.tables().values().forEach(t -> t.time().ifPresent(c -> out.add(t.name().text() + "." + c.text())));
+        return out;
     }
 
     static String sha256(String text) {

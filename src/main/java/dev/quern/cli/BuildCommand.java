@@ -30,6 +30,8 @@ final class BuildCommand implements Callable<Integer> {
         w.printf("%d rows x %d columns (%d cutoffs) written to %s%n", built.run().rows(),
                 built.compilation().plan().columns().size(), built.compilation().plan().cutoffs().size(), out);
         built.files().forEach(f -> w.println("  " + f.getFileName()));
+        built.rules().stream().filter(r -> r.failed() > 0).forEach(r -> w.printf("rule on %s: %d of %d rows %s (%s)%n",
+                r.rule().table(), r.failed(), r.checked(), r.action(), r.rule().describe()));
         return 0;
     }
 }
