@@ -47,7 +47,7 @@ class BuildCommandTest {
         List<String> matrix = Files.readAllLines(target.resolve("matrix.csv"));
         assertTrue(matrix.get(0).startsWith("member_id,cutoff,rides_count_30d,"), matrix.get(0));
         assertTrue(matrix.get(0).endsWith(",cancels_in_60d"), matrix.get(0));
-        assertTrue(out.toString().contains((matrix.size() - 1) + " rows x 33 columns (19 cutoffs)"), out.toString());
+        assertTrue(out.toString().contains((matrix.size() - 1) + " rows x 36 columns (19 cutoffs)"), out.toString());
         assertEquals("", err.toString(), "no progress noise when standard error is not a terminal");
     }
 
@@ -96,9 +96,11 @@ class BuildCommandTest {
         String sql = out.toString();
         assertTrue(sql.startsWith("with"), sql.substring(0, 40));
         // One grouped scan per block, lookup and label: never one subquery per feature.
-        assertEquals(5, count(sql, "group by"), "4 blocks and the label are grouped scans");
-        // rides is read by two blocks (its own and the one through stations), each once for all windows.
-        assertEquals(2, count(sql, "join rides as"), sql);
+        assertEquals(7, count(sql, "group by"), "6 blocks and the label are grouped scans");
+        // rides is read by two blocks (its own and the one through stations), each once for all windows,
+        // and each time without the rides its plausibility rule excludes.
+        assertEquals(2, count(sql, "from rides\n"), sql);
+        assertEquals(2, count(sql, "rides.distance_km"), sql);
     }
 
     private static int count(String text, String part) {

@@ -10,7 +10,11 @@ import dev.quern.recipe.MeasureKind;
 import dev.quern.recipe.MeasureSpec;
 import dev.quern.recipe.Name;
 import dev.quern.recipe.PathSpec;
+import dev.quern.expr.CheckedExpression;
+import dev.quern.expr.Expect;
+import dev.quern.recipe.Link;
 import dev.quern.recipe.Recipe;
+import dev.quern.recipe.RuleSpec;
 import dev.quern.recipe.Span;
 import dev.quern.recipe.TableSpec;
 import java.math.BigDecimal;
@@ -74,9 +78,16 @@ final class ReferenceEvaluator {
      * One row of a path: the day of its first table's time, and the values of the columns a block reads, each
      * from the hop that provides it (null when that hop is unmatched).
      */
-    private record PathRow(LocalDate day, long epochDay, Object[] values) {
-        PathRow(LocalDate day, Object[] values) {
-            this(day, day.toEpochDay(), values);
+    private record PathRow(LocalDate day, long epochDay, Object[] values, Map<String, Object> scope) {
+        PathRow(LocalDate day, Object[] values, Map<String, Object> scope) {
+            this(day, day.toEpochDay(), values, scope);
+        }
+
+        /** The row as a filter sees it at a cutoff: every path column by table.column, and the cutoff. */
+        Map<String, Object> at(LocalDate cutoff) {
+            Map<String, Object> m = new HashMap<>(scope);
+            m.put("cutoff", cutoff);
+            return m;
         }
     }
 
@@ -95,6 +106,7 @@ final class ReferenceEvaluator {
     static Result evaluate(Recipe recipe, Path sqlite) {
         ReferenceEvaluator evaluator = new ReferenceEvaluator(recipe);
         evaluator.readTables(sqlite);
+        evaluator.applyRules();
         return evaluator.compute();
     }
 
@@ -110,6 +122,67 @@ final class ReferenceEvaluator {
         } catch (SQLException e) {
             throw new IllegalStateException("reading " + sqlite + " failed: " + e.getMessage(), e);
         }
+    }
+
+    /**
+     * Rules that exclude rows take them out of their table before anything reads it: a check keeps the rows
+     * where its condition is true; an orphans rule keeps the rows whose filled links all find their row.
+     */
+    private void applyRules() {
+        Map<String, Table> kept = new HashMap<>();
+        for (RuleSpec rule : recipe.rules()) {
+            if (!(rule instanceof RuleSpec.Check || rule instanceof RuleSpec.Orphans)
+                    || rule instanceof RuleSpec.Check c && c.failing() != RuleSpec.Failing.EXCLUDE
+                    || rule instanceof RuleSpec.Orphans o && o.failing() != RuleSpec.Failing.EXCLUDE) {
+                continue;
+            }
+            String name = rule.table().text();
+            Table original = tables.get(name);
+            Table current = kept.getOrDefault(name, original);
+            List<Map<String, Object>> rows = new ArrayList<>();
+            if (rule instanceof RuleSpec.Check check) {
+                CheckedExpression condition = ReferenceExpressions.check(check.condition(), columnsOf(original),
+                        List.of(), false, Expect.CONDITION);
+                for (Map<String, Object> row : current.rows()) {
+                    if (ReferenceExpressions.keeps(condition, qualified(name, row))) {
+                        rows.add(row);
+                    }
+                }
+            } else {
+                for (Map<String, Object> row : current.rows()) {
+                    boolean linked = true;
+                    for (Link link : spec(name).links()) {
+                        Object value = row.get(link.column().text());
+                        String target = link.target().text();
+                        String key = target.equals(recipe.entity().table().text()) ? recipe.entity().key().text()
+                                : spec(target).key().orElseThrow().text();
+                        linked &= value == null || tables.get(target).rows().stream()
+                                .anyMatch(t -> keyOf(value).equals(keyOf(t.get(key))));
+                    }
+                    if (linked) {
+                        rows.add(row);
+                    }
+                }
+            }
+            kept.put(name, new Table(name, current.columns(), rows));
+        }
+        tables.putAll(kept);
+    }
+
+    private List<ReferenceExpressions.Column> columnsOf(Table table) {
+        List<ReferenceExpressions.Column> out = new ArrayList<>();
+        for (String c : table.columns()) {
+            List<Object> values = new ArrayList<>();
+            table.rows().forEach(r -> values.add(r.get(c)));
+            out.add(new ReferenceExpressions.Column(table.name(), c, values));
+        }
+        return out;
+    }
+
+    private static Map<String, Object> qualified(String table, Map<String, Object> row) {
+        Map<String, Object> out = new HashMap<>();
+        row.forEach((k, v) -> out.put(table + "." + k, v));
+        return out;
     }
 
     private static Table read(Connection c, String name) throws SQLException {
@@ -179,10 +252,36 @@ final class ReferenceEvaluator {
                 aggregates(block, cohort, columns, rows);
             } else if (feature instanceof FeatureSpec.Lookup lookup) {
                 lookup(lookup, cohort, columns, rows);
+            } else if (feature instanceof FeatureSpec.Derived derived) {
+                derived(derived, cohort, columns, rows);
             }
         }
         recipe.label().ifPresent(label -> label(label, cohort, columns, rows));
         return new Result(columns, rows);
+    }
+
+    /** A formula over the feature columns before it (the row's values as written), and the cutoff. */
+    private void derived(FeatureSpec.Derived derived, List<CohortRow> cohort, List<String> columns,
+                         List<List<Object>> rows) {
+        List<ReferenceExpressions.Column> features = new ArrayList<>();
+        for (int c = 2; c < columns.size(); c++) {
+            List<Object> values = new ArrayList<>();
+            for (List<Object> row : rows) {
+                values.add(row.get(c));
+            }
+            features.add(new ReferenceExpressions.Column("", columns.get(c), values));
+        }
+        CheckedExpression formula = ReferenceExpressions.check(derived.expression(), List.of(), features, true,
+                Expect.VALUE);
+        for (int r = 0; r < rows.size(); r++) {
+            Map<String, Object> values = new HashMap<>();
+            for (int c = 2; c < columns.size(); c++) {
+                values.put(columns.get(c), rows.get(r).get(c));
+            }
+            values.put("cutoff", cohort.get(r).cutoff());
+            rows.get(r).add(ReferenceExpressions.value(formula, values));
+        }
+        columns.add(derived.name().text());
     }
 
     /** The cutoff dates: own expansion of a schedule; an explicit list sorted without repeats. */
@@ -228,6 +327,8 @@ final class ReferenceEvaluator {
             }
         }
 
+        CheckedExpression cohortFilter = entity.where().map(w -> ReferenceExpressions.check(w,
+                columnsOf(table(entityTable)), List.of(), true, Expect.CONDITION)).orElse(null);
         List<CohortRow> out = new ArrayList<>();
         for (LocalDate d : cutoffs()) {
             for (Map<String, Object> e : entities) {
@@ -240,6 +341,13 @@ final class ReferenceEvaluator {
                 LocalDate gone = exit.get(e.get(key));
                 if (gone != null && !gone.isAfter(d)) {
                     continue;
+                }
+                if (cohortFilter != null) {
+                    Map<String, Object> scope = qualified(entityTable, e);
+                    scope.put("cutoff", d);
+                    if (!ReferenceExpressions.keeps(cohortFilter, scope)) {
+                        continue;
+                    }
                 }
                 out.add(new CohortRow(e, e.get(key), d));
             }
@@ -262,6 +370,8 @@ final class ReferenceEvaluator {
             }).orElse(-1);
         }
         Map<Object, List<PathRow>> byEntity = pathRows(path, read);
+        CheckedExpression filter = block.where().map(w -> ReferenceExpressions.check(w, pathColumns(path), List.of(),
+                true, Expect.CONDITION)).orElse(null);
         String prefix = block.prefix().map(Name::text).orElseGet(() -> joinedTables(path));
         List<Span> windows = block.windows();
 
@@ -277,7 +387,7 @@ final class ReferenceEvaluator {
             CohortRow row = cohort.get(r);
             LocalDate d = row.cutoff();
             LocalDate next = d.plusDays(1);
-            List<PathRow> all = byEntity.getOrDefault(row.key(), List.of());
+            List<PathRow> all = kept(byEntity.getOrDefault(row.key(), List.of()), filter, d);
             List<List<PathRow>> inWindow = new ArrayList<>();
             for (Span w : windows) {
                 // all is sorted by day: the window start <= day <= d is one run of it
@@ -292,6 +402,32 @@ final class ReferenceEvaluator {
                 }
             }
         }
+    }
+
+    /** The rows a filter keeps at a cutoff; all of them when there is no filter. */
+    private static List<PathRow> kept(List<PathRow> rows, CheckedExpression filter, LocalDate cutoff) {
+        if (filter == null) {
+            return rows;
+        }
+        List<PathRow> out = new ArrayList<>();
+        for (PathRow r : rows) {
+            if (ReferenceExpressions.keeps(filter, r.at(cutoff))) {
+                out.add(r);
+            }
+        }
+        return out;
+    }
+
+    /** Every column of every table of a path, as a filter names them. */
+    private List<ReferenceExpressions.Column> pathColumns(PathSpec path) {
+        List<ReferenceExpressions.Column> out = new ArrayList<>();
+        Set<String> seen = new java.util.HashSet<>();
+        for (Hop h : path.hops()) {
+            if (seen.add(h.table().text())) {
+                out.addAll(columnsOf(table(h.table().text())));
+            }
+        }
+        return out;
     }
 
     /** The index of the first row of {@code rows} (sorted by day) whose day is on or after {@code day}. */
@@ -381,7 +517,15 @@ final class ReferenceEvaluator {
                 Map<String, Object> source = joined.get(hopOf[i]);
                 values[i] = source == null ? null : source.get(columns.get(i));
             }
-            out.computeIfAbsent(owner, k -> new ArrayList<>()).add(new PathRow(day, values));
+            Map<String, Object> scope = new HashMap<>();
+            for (int h = joined.size() - 1; h >= 0; h--) {
+                String hopTable = hops.get(h).table().text();
+                Map<String, Object> hopRow = joined.get(h);
+                for (String c : table(hopTable).columns()) {
+                    scope.putIfAbsent(hopTable + "." + c, hopRow == null ? null : hopRow.get(c));
+                }
+            }
+            out.computeIfAbsent(owner, k -> new ArrayList<>()).add(new PathRow(day, values, scope));
         }
         out.values().forEach(rows -> rows.sort(Comparator.comparing(PathRow::day)));
         return out;
@@ -613,6 +757,8 @@ final class ReferenceEvaluator {
         LocalDate observed = latestObservedDay();
         Map<Object, List<PathRow>> byEntity = pathRows(label.from(),
                 label.column().map(c -> List.of(c.text())).orElse(List.of()));
+        CheckedExpression filter = label.where().map(w -> ReferenceExpressions.check(w, pathColumns(label.from()),
+                List.of(), true, Expect.CONDITION)).orElse(null);
         for (int i = 0; i < cohort.size(); i++) {
             CohortRow row = cohort.get(i);
             LocalDate start = plus(row.cutoff().plusDays(1), label.gap());
@@ -621,7 +767,7 @@ final class ReferenceEvaluator {
                 rows.get(i).add(null); // the horizon is not wholly observed
                 continue;
             }
-            List<PathRow> all = byEntity.getOrDefault(row.key(), List.of());
+            List<PathRow> all = kept(byEntity.getOrDefault(row.key(), List.of()), filter, row.cutoff());
             List<PathRow> in = all.subList(firstOnOrAfter(all, start), firstOnOrAfter(all, end)); // start <= day < end
             rows.get(i).add(switch (label.kind()) {
                 case EXISTS -> in.isEmpty() ? 0L : 1L;
