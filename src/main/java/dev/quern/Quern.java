@@ -1,5 +1,8 @@
 package dev.quern;
 
+import dev.quern.encode.EncodePlan;
+import dev.quern.encode.Encoder;
+import dev.quern.encode.Fitted;
 import dev.quern.plan.Plan;
 import dev.quern.plan.Planner;
 import dev.quern.recipe.Recipe;
@@ -31,6 +34,7 @@ import java.sql.Connection;
 import java.sql.SQLException;
 import java.time.Duration;
 import java.time.Instant;
+import java.time.LocalDate;
 import java.util.HexFormat;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -55,10 +59,18 @@ public final class Quern {
 
     private final Recipe recipe;
     private final Path recipeFolder;
+    private final Optional<List<LocalDate>> cutoffs;
+    private final Optional<Path> fitted;
 
     private Quern(Recipe recipe, Path recipeFolder) {
+        this(recipe, recipeFolder, Optional.empty(), Optional.empty());
+    }
+
+    private Quern(Recipe recipe, Path recipeFolder, Optional<List<LocalDate>> cutoffs, Optional<Path> fitted) {
         this.recipe = recipe;
         this.recipeFolder = recipeFolder;
+        this.cutoffs = cutoffs;
+        this.fitted = fitted;
     }
 
     /** Reads and parses a recipe file; relative SQLite paths in it are read from the file's folder. */
@@ -74,7 +86,17 @@ public final class Quern {
 
     /** The same recipe reading another source (a JDBC URL; may name {@code ${VARIABLES}}). */
     public Quern withSource(String url) {
-        return new Quern(recipe.withSource(url), Path.of("").toAbsolutePath());
+        return new Quern(recipe.withSource(url), Path.of("").toAbsolutePath(), cutoffs, fitted);
+    }
+
+    /** The same recipe built at other cutoffs (a scoring run): same columns, other rows. */
+    public Quern withCutoffs(List<LocalDate> dates) {
+        return new Quern(recipe, recipeFolder, Optional.of(List.copyOf(dates)), fitted);
+    }
+
+    /** Encodings taken from an earlier build's fitted file instead of fitted again. */
+    public Quern withFitted(Path file) {
+        return new Quern(recipe, recipeFolder, cutoffs, Optional.of(file));
     }
 
     public Recipe recipe() {
@@ -103,27 +125,40 @@ public final class Quern {
         try (Connection connection = source.open(); OutputFolder out = new OutputFolder(folder)) {
             progress.stage("checking the recipe against " + source.engine().label());
             Compilation compilation = compile(source, connection, timings);
+            EncodePlan encoding = Encoder.plan(recipe, compilation.plan());
+            String recipeSha256 = sha256(recipe.text());
+            Optional<Fitted> frozen = fitted.map(f -> Encoder.readFitted(f, encoding, recipeSha256));
             progress.stage("checking the data against the recipe's rules");
             long rulesStarted = System.nanoTime();
             List<RuleOutcome> rules = RuleRunner.run(RuleQueries.of(compilation.plan()), connection);
             timings.put("rules", Duration.ofNanos(System.nanoTime() - rulesStarted));
             progress.stage("building " + MATRIX);
             RunResult run;
-            try (Writer matrix = out.open(MATRIX)) {
-                run = MatrixWriter.write(compilation.query(), connection, matrix, progress);
+            Plan table = compilation.plan();
+            if (encoding.isEmpty() && frozen.isEmpty()) {
+                try (Writer matrix = out.open(MATRIX)) {
+                    run = MatrixWriter.write(compilation.query(), connection, matrix, progress);
+                }
+            } else {
+                // The encode stage: the raw matrix goes to a scratch file, then is fitted and encoded into MATRIX.
+                Encoder.Encoded encoded = Encoder.build(encoding, frozen, recipeSha256, out,
+                        raw -> MatrixWriter.write(compilation.query(), connection, raw, progress), progress);
+                run = encoded.run();
+                table = encoded.plan();
+                timings.put("encode", encoded.time());
             }
             timings.put("query", run.queryTime());
             timings.put("write", run.writeTime());
             progress.stage("writing reports");
-            DataDictionary dictionary = new DataDictionary(compilation.plan(), run);
+            DataDictionary dictionary = new DataDictionary(table, run);
             out.write(DICTIONARY_CSV, dictionary.csv());
             out.write(DICTIONARY_MD, dictionary.markdown());
             out.write(RULES, RulesReport.markdown(recipe.name().text(), rules, compilation.schema(), eventTimes()));
-            out.write(PROVENANCE, Provenance.render(compilation.plan(), compilation.schema(), run, rules,
-                    new Provenance.Facts(recipe.file(), sha256(recipe.text()), Version.current(), source.display(),
+            out.write(PROVENANCE, Provenance.render(table, compilation.schema(), run, rules,
+                    new Provenance.Facts(recipe.file(), recipeSha256, Version.current(), source.display(),
                             source.file().map(Quern::sha256), builtAt, timings)));
             List<Path> files = out.commit();
-            return new BuildSummary(compilation, run, rules, files);
+            return new BuildSummary(compilation, run, rules, files, table.columns());
         } catch (IOException e) {
             throw QuernException.output("writing to " + folder + " failed: " + e.getMessage(), e);
         } catch (SQLException e) {
@@ -137,7 +172,9 @@ public final class Quern {
         long t0 = System.nanoTime();
         SourceSchema schema = new SchemaReader(connection, source.engine()).read(recipe);
         long t1 = System.nanoTime();
-        Plan plan = Planner.plan(recipe, schema);
+        Plan planned = Planner.plan(recipe, schema);
+        Plan plan = cutoffs.map(planned::withCutoffs).orElse(planned);
+        Encoder.plan(recipe, plan);
         CompiledQuery query = SqlCompiler.compile(plan);
         long t2 = System.nanoTime();
         timings.put("schema", Duration.ofNanos(t1 - t0));

@@ -56,6 +56,20 @@ public record Plan(String recipeName, Engine engine, Optional<ZoneId> timeZone, 
                 && r.failing() == dev.quern.recipe.RuleSpec.Failing.EXCLUDE).toList();
     }
 
+    /**
+     * The same plan at other cutoffs: a scoring run's {@code --cutoffs}. The columns do not depend on the
+     * cutoffs, so they stay exactly the same.
+     */
+    public Plan withCutoffs(List<LocalDate> dates) {
+        return new Plan(recipeName, engine, timeZone, List.copyOf(new java.util.TreeSet<>(dates)), cohort, blocks,
+                lookups, derived, label, rules, columns);
+    }
+
+    /** The same plan describing other output columns: the matrix after the encode stage. */
+    public Plan withColumns(List<OutputColumn> outputs) {
+        return new Plan(recipeName, engine, timeZone, cutoffs, cohort, blocks, lookups, derived, label, rules, outputs);
+    }
+
     public List<OutputColumn> features() {
         return columns.stream().filter(c -> c.role() == Role.FEATURE).toList();
     }

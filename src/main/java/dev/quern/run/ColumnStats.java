@@ -26,7 +26,8 @@ public final class ColumnStats {
         this.type = type;
     }
 
-    void add(Object value, String text) {
+    /** Counts one cell: its value (null when empty) and the text written for it. */
+    public void add(Object value, String text) {
         rows++;
         if (value == null) {
             empty++;
