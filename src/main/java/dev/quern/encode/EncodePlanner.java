@@ -264,20 +264,24 @@ final class EncodePlanner {
                         + " part" + range(part));
             }
         }
+        boolean overlap = false;
         for (int i = 0; i < split.parts().size(); i++) {
             for (int j = i + 1; j < split.parts().size(); j++) {
                 SplitSpec.Part a = split.parts().get(i);
                 SplitSpec.Part b = split.parts().get(j);
-                held.get(b.name().text()).stream().filter(a::holds).findFirst().ifPresent(c ->
-                        problems.error(b.position(), "cutoff " + c + " falls in both the " + a.name().text()
-                                + " and the " + b.name().text() + " part: parts must not overlap"));
+                Optional<LocalDate> both = held.get(b.name().text()).stream().filter(a::holds).findFirst();
+                if (both.isPresent()) {
+                    overlap = true;
+                    problems.error(b.position(), "cutoff " + both.get() + " falls in both the " + a.name().text()
+                            + " and the " + b.name().text() + " part: parts must not overlap");
+                }
             }
         }
         List<LocalDate> train = held.getOrDefault("train", List.of());
         List<LocalDate> test = held.getOrDefault("test", List.of());
         Optional<SplitSpec.Part> testPart = split.parts().stream().filter(p -> p.name().text().equals("test"))
                 .findFirst();
-        if (train.isEmpty() || test.isEmpty() || testPart.isEmpty()) {
+        if (overlap || train.isEmpty() || test.isEmpty() || testPart.isEmpty()) {
             return;
         }
         LocalDate lastTrain = train.get(train.size() - 1);
