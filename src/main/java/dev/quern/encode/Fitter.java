@@ -155,7 +155,7 @@ final class Fitter {
     private Accumulator accumulator(Step step, ColumnEncoding column) {
         String name = column.source().name();
         if (step instanceof Step.OneHot h) {
-            return new Levels(name, h.spelling(), Math.max(h.top(), 0), true);
+            return new Levels(name, h.spelling(), h.top(), true);
         }
         if (step instanceof Step.Frequency f) {
             return new Levels(name, f.spelling(), 0, false);
@@ -275,7 +275,7 @@ final class Fitter {
         public FittedStep finish() {
             FittedStep.TargetMean fitted = statistics.freeze();
             if (fitted.labelledRows() == 0) {
-                throw QuernException.data("cannot fit target-mean: no training row has a label (" + "the training"
+                throw QuernException.data("cannot fit target-mean: no training row has a label (the training"
                         + " cutoffs' horizons are not yet observed)");
             }
             return fitted;
