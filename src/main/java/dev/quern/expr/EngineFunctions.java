@@ -4,6 +4,7 @@ import dev.quern.schema.Engine;
 import java.math.BigDecimal;
 import java.time.LocalDate;
 import java.time.LocalDateTime;
+import java.time.format.DateTimeFormatter;
 import java.util.List;
 import java.util.OptionalLong;
 import org.jooq.DataType;
@@ -64,6 +65,14 @@ abstract class EngineFunctions {
         return dividend.cast(SQLDataType.DOUBLE).coerce(BigDecimal.class);
     }
 
+    /**
+     * sqrt, null for a negative number instead of PostgreSQL's and DuckDB's error. The guard names its
+     * argument twice (no single-use form keeps 0 and drops negatives), which {@link SqlSize} accounts for.
+     */
+    Field<Object> sqrt(Field<BigDecimal> x) {
+        return DSL.sqrt(DSL.when(x.ge(DSL.inline(0).coerce(BigDecimal.class)), x)).coerce(Object.class);
+    }
+
     /** Half away from zero, on the value as the engine holds it. */
     abstract Field<Object> round(Field<BigDecimal> value, OptionalLong digits);
 
@@ -103,7 +112,7 @@ abstract class EngineFunctions {
 
     /** {@code 2025-03-31 12:00:00}, with a fraction only when there is one. */
     static String isoText(LocalDateTime value) {
-        return value.toLocalDate() + " " + java.time.format.DateTimeFormatter.ISO_LOCAL_TIME.format(value.toLocalTime());
+        return value.toLocalDate() + " " + DateTimeFormatter.ISO_LOCAL_TIME.format(value.toLocalTime());
     }
 
     static Field<Object> template(String sql, Field<?>... arguments) {

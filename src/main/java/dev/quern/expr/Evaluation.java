@@ -152,7 +152,7 @@ final class Evaluation {
             case LN -> asDouble(x) > 0 ? Math.log(asDouble(x)) : null;
             case LOG10 -> asDouble(x) > 0 ? Math.log10(asDouble(x)) : null;
             case SQRT -> asDouble(x) >= 0 ? Math.sqrt(asDouble(x)) : null;
-            case EXP -> asDouble(x) <= Rendering.EXP_LIMIT ? Math.exp(asDouble(x)) : null;
+            case EXP -> asDouble(x) < Rendering.EXP_LIMIT ? Math.exp(asDouble(x)) : null;
             case LEAST -> values.stream().reduce((a, b) -> Values.compare(b, a) < 0 ? b : a).orElseThrow();
             case GREATEST -> values.stream().reduce((a, b) -> Values.compare(b, a) > 0 ? b : a).orElseThrow();
             case LOWER -> ((String) x).toLowerCase(Locale.ROOT);

@@ -14,7 +14,7 @@ import org.jooq.Field;
  *
  * <p>Language rules the SQL keeps on every engine: division by zero and modulo by zero give null
  * ({@code a / nullif(b, 0)}), division is never integer division, ln/log10 of a non-positive number,
- * sqrt of a negative one and exp of more than 709.78 give null (the argument is replaced by null first, so
+ * sqrt of a negative one and exp of 709.78 or more give null (the argument is replaced by null first, so
  * that no engine raises an error even for constants), least/greatest are null when any argument is, and a
  * timestamp compared with a date is compared by its date.
  */

@@ -49,7 +49,10 @@ class PostgresFunctions extends EngineFunctions {
         return template("({0} - {1})", asDate(to, toType), asDate(from, fromType));
     }
 
-    /** greatest() and least() skip nulls here (and in DuckDB): guarded, so that any null argument gives null. */
+    /**
+     * greatest() and least() skip nulls here (and in DuckDB): guarded, so that any null argument gives
+     * null. The guard names each argument twice, which {@link SqlSize} accounts for.
+     */
     @Override
     Field<Object> extreme(boolean greatest, List<Field<Object>> arguments) {
         Condition allPresent = DSL.and(arguments.stream().map(Field::isNotNull).toList());

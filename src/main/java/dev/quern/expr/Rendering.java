@@ -3,6 +3,7 @@ package dev.quern.expr;
 import java.math.BigDecimal;
 import java.time.LocalDate;
 import java.time.LocalDateTime;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.OptionalLong;
 import java.util.function.Function;
@@ -13,7 +14,7 @@ import org.jooq.impl.DSL;
 /** One walk over a checked tree, producing jOOQ fields and conditions. */
 final class Rendering {
 
-    /** Above this exp() overflows a double: the largest finite double is e^709.78... */
+    /** exp() of this or more is null: just below ln(Double.MAX_VALUE) = 709.7827..., where a double overflows. */
     static final double EXP_LIMIT = 709.78;
 
     private final EngineFunctions engine;
@@ -117,11 +118,10 @@ final class Rendering {
             case ABS -> DSL.abs(number(args.get(0))).coerce(Object.class);
             case ROUND -> engine.round(number(args.get(0)), args.size() == 2
                     ? OptionalLong.of((Long) ((Typed.Constant) args.get(1)).value()) : OptionalLong.empty());
-            case LN -> DSL.ln(onlyWhen(args.get(0), x -> x.gt(zero()))).coerce(Object.class);
-            case LOG10 -> DSL.log10(onlyWhen(args.get(0), x -> x.gt(zero()))).coerce(Object.class);
-            case SQRT -> DSL.sqrt(onlyWhen(args.get(0), x -> x.ge(zero()))).coerce(Object.class);
-            case EXP -> DSL.exp(onlyWhen(args.get(0),
-                    x -> x.le(engine.decimal(EXP_LIMIT).coerce(BigDecimal.class)))).coerce(Object.class);
+            case LN -> DSL.ln(positiveOrNull(number(args.get(0)))).coerce(Object.class);
+            case LOG10 -> DSL.log10(positiveOrNull(number(args.get(0)))).coerce(Object.class);
+            case SQRT -> engine.sqrt(number(args.get(0)));
+            case EXP -> DSL.exp(belowExpLimitOrNull(number(args.get(0)))).coerce(Object.class);
             // Seen as text fields only to pick jOOQ's overload; coerce() renders nothing.
             case COALESCE -> DSL.coalesce(text(args.get(0)),
                     args.subList(1, args.size()).stream().map(this::value).toArray(Field<?>[]::new)).coerce(Object.class);
@@ -140,10 +140,20 @@ final class Rendering {
         };
     }
 
-    /** {@code case when test(x) then x end}: the function then sees null instead of a value it would reject. */
-    private Field<BigDecimal> onlyWhen(Typed argument, Function<Field<BigDecimal>, Condition> test) {
-        Field<BigDecimal> x = number(argument);
-        return DSL.when(test.apply(x), x);
+    /**
+     * {@code nullif(greatest(x, 0), 0)}: x when it is positive, else null, so that ln and log10 never see a
+     * value they would reject (PostgreSQL raises an error, even for a constant it folds while planning).
+     * It names x once: a {@code case when x > 0 then x end} would write x twice, and nested calls would
+     * then double the SQL at every level. greatest() skipping a null on some engines changes nothing here.
+     */
+    private static Field<BigDecimal> positiveOrNull(Field<BigDecimal> x) {
+        return DSL.nullif(DSL.greatest(x, zero()), zero());
+    }
+
+    /** {@code nullif(least(x, 709.78), 709.78)}: x below the limit, else null; x named once, as above. */
+    private Field<BigDecimal> belowExpLimitOrNull(Field<BigDecimal> x) {
+        Field<BigDecimal> limit = engine.decimal(EXP_LIMIT).coerce(BigDecimal.class);
+        return DSL.nullif(DSL.least(x, limit), limit);
     }
 
     private Condition compare(Operator operator, Typed leftNode, Typed rightNode) {
@@ -191,7 +201,7 @@ final class Rendering {
     }
 
     private Condition in(Typed.In in) {
-        List<Typed> all = new java.util.ArrayList<>(in.items());
+        List<Typed> all = new ArrayList<>(in.items());
         all.add(in.value());
         if (mixesDayAndTime(all)) {
             // 'x in (a, b)' is 'x = a or x = b' under three-valued logic too; spelled out for the date rule.
@@ -203,7 +213,7 @@ final class Rendering {
         return in.negated() ? value.notIn(items) : value.in(items);
     }
 
-    private static boolean mixesDayAndTime(List<Typed> nodes) {
+    static boolean mixesDayAndTime(List<Typed> nodes) {
         return nodes.stream().anyMatch(n -> n.type() == ExprType.DATE)
                 && nodes.stream().anyMatch(n -> n.type() == ExprType.TIMESTAMP);
     }

@@ -56,6 +56,12 @@ final class SqliteFunctions extends EngineFunctions {
         return template("replace({0}, 'T', ' ')", timestamp);
     }
 
+    /** SQLite's sqrt() returns null for a negative number already: no guard, the argument written once. */
+    @Override
+    Field<Object> sqrt(Field<BigDecimal> x) {
+        return DSL.sqrt(x).coerce(Object.class);
+    }
+
     /** round() works on the double's exact value, half away from zero, and always returns a REAL. */
     @Override
     Field<Object> round(Field<BigDecimal> value, OptionalLong digits) {

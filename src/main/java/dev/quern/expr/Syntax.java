@@ -2,6 +2,7 @@ package dev.quern.expr;
 
 import java.time.LocalDate;
 import java.time.LocalDateTime;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
@@ -35,7 +36,7 @@ sealed interface Syntax {
             return List.of(b.value(), b.low(), b.high());
         }
         if (this instanceof In in) {
-            List<Syntax> all = new java.util.ArrayList<>();
+            List<Syntax> all = new ArrayList<>();
             all.add(in.value());
             all.addAll(in.items());
             return all;

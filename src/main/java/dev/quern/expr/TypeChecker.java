@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
 import java.util.Set;
+import java.util.function.Predicate;
 
 /**
  * Resolves every name against the scope and gives every node a type, reporting each mistake it finds
@@ -45,7 +46,10 @@ final class TypeChecker {
 
     Optional<Typed> check(Syntax root, Expect expect) {
         Checked result = check(root);
-        if (!result.broken()) {
+        if (!failed && SqlSize.of(result.node()) > SqlSize.LIMIT) {
+            error(root.start(), "the expression is too large to write as SQL: sqrt, least and greatest repeat"
+                    + " their arguments on some engines, so nesting them doubles it at every level");
+        } else if (!result.broken()) {
             if (result.type() == ExprType.NULL) {
                 error(root.start(), "the expression is always null");
             } else if (expect == Expect.CONDITION && result.type() != ExprType.BOOLEAN) {
@@ -324,7 +328,7 @@ final class TypeChecker {
         return call(function, type, typed);
     }
 
-    private void need(BuiltIn function, String what, java.util.function.Predicate<ExprType> fits, Syntax.Call c,
+    private void need(BuiltIn function, String what, Predicate<ExprType> fits, Syntax.Call c,
                       List<Checked> arguments, int index) {
         Checked argument = arguments.get(index);
         if (!argument.broken() && argument.type() != ExprType.NULL && !fits.test(argument.type())) {

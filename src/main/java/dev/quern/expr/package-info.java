@@ -30,7 +30,7 @@
  *   <li>SQL's three-valued logic; every operator and function but {@code is null}, coalesce and nullif's
  *   second argument gives null for a null argument (least and greatest too, unlike PostgreSQL's).</li>
  *   <li>Division is never integer division; division and modulo by zero give null; ln, log10 of a
- *   non-positive number, sqrt of a negative one and exp above 709.78 give null, never an error.</li>
+ *   non-positive number, sqrt of a negative one and exp of 709.78 or more give null, never an error.</li>
  *   <li>{@code %} takes whole numbers only; round's digits are a literal from 0 to 15 and it rounds half
  *   away from zero.</li>
  *   <li>A date stands for its whole day: compared with a timestamp, the timestamp's date is compared, so

@@ -79,11 +79,12 @@ class ExprRendererTest {
 
     @Test
     void logarithmsAndRootsSeeNullOutsideTheirDomain() {
-        String text = "ln(distance_km) > 1 or sqrt(n) is null";
-        assertEquals("(ln(case when r.distance_km > 0 then r.distance_km end) > 1"
-                + " or sqrt(case when r.n >= 0 then r.n end) is null)", condition(Engine.SQLITE, text));
-        assertEquals("(ln(case when \"r\".\"distance_km\" > 0 then \"r\".\"distance_km\" end) > 1"
-                + " or sqrt(case when \"r\".\"n\" >= 0 then \"r\".\"n\" end) is null)", condition(Engine.POSTGRES, text));
+        String text = "ln(distance_km) > 1 or sqrt(n) is null or exp(n) > 1";
+        assertEquals("(ln(nullif(max(r.distance_km, 0), 0)) > 1 or sqrt(r.n) is null"
+                + " or exp(nullif(min(r.n, 7.0978E2), 7.0978E2)) > 1)", condition(Engine.SQLITE, text));
+        assertEquals("(ln(nullif(greatest(\"r\".\"distance_km\", 0), 0)) > 1"
+                + " or sqrt(case when \"r\".\"n\" >= 0 then \"r\".\"n\" end) is null"
+                + " or exp(nullif(least(\"r\".\"n\", 709.78), 709.78)) > 1)", condition(Engine.POSTGRES, text));
     }
 
     @Test

@@ -125,6 +125,13 @@ class InjectionTest {
         assertEquals(List.of(6), idsWhere("weird is null"));
     }
 
+    /** As deep as the parser allows, the SQL still renders and runs: no stack or SQLite depth limit is hit. */
+    @Test
+    void theDeepestAcceptedExpressionRunsOnSqlite() {
+        String deep = "ln(".repeat(40) + "(id" + " / 1 * 1".repeat(29) + ")" + ")".repeat(40) + " is null";
+        assertEquals(List.of(1, 2, 3, 4, 5, 6), idsWhere(deep));
+    }
+
     /** None of these produce any SQL: each stops at the lexer, the parser or the scope. */
     @Test
     void hostileTextOutsideLiteralsIsRefusedBeforeAnySql() {

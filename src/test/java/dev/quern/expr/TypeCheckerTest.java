@@ -228,6 +228,16 @@ class TypeCheckerTest {
     }
 
     @Test
+    void anExpressionWhoseSqlWouldExplodeIsRefused() {
+        String nested = "sqrt(".repeat(14) + "distance_km" + ")".repeat(14) + " > 1";
+        assertEquals("rides.yaml:14:8: the expression is too large to write as SQL: sqrt, least and greatest"
+                + " repeat their arguments on some engines, so nesting them doubles it at every level", message(nested));
+        ok("sqrt(".repeat(12) + "distance_km" + ")".repeat(12) + " > 1", Expect.CONDITION);
+        ok("ln(".repeat(90) + "distance_km" + ")".repeat(90) + " > 1", Expect.CONDITION);
+        ok("rides.member_id in (" + "1, ".repeat(6000) + "2)", Expect.CONDITION);
+    }
+
+    @Test
     void theResultKnowsItsTypeColumnsAndCutoff() {
         CheckedExpression checked = ok("rides.member_id % 2 = 0 and distance_km / 2 > 1 and rides.member_id > 0"
                 + " and days_between(joined_on, cutoff) >= 30", Expect.CONDITION);
