@@ -12,7 +12,7 @@ import picocli.CommandLine.Command;
 @Command(name = "quern", mixinStandardHelpOptions = true, versionProvider = Main.VersionProvider.class,
         description = "Compiles a feature recipe into SQL and builds a point-in-time modelling table.",
         subcommands = {BuildCommand.class, CheckCommand.class, SqlCommand.class, LineageCommand.class,
-                SampleCommand.class,
+                CompareCommand.class, SampleCommand.class,
                 CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
 
@@ -58,7 +58,7 @@ public final class Main implements Runnable {
 
     @Override
     public void run() {
-        throw new CommandLine.ParameterException(spec.commandLine(), "name a command: build, check, sql, lineage or sample");
+        throw new CommandLine.ParameterException(spec.commandLine(), "name a command: build, check, sql, lineage, compare or sample");
     }
 
     /** Reports the version Maven stamped into the jar. */
