@@ -1,8 +1,11 @@
 package dev.quern.cli;
 
 import dev.quern.BuildSummary;
+import dev.quern.report.Thresholds;
 import dev.quern.run.TerminalProgress;
 import java.nio.file.Path;
+import java.util.List;
+import java.util.Optional;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -11,7 +14,8 @@ import picocli.CommandLine.Spec;
 
 /** {@code quern build}: the modelling table and its reports. */
 @Command(name = "build", mixinStandardHelpOptions = true,
-        description = "Build the modelling table, data dictionary and provenance into a folder.")
+        description = {"Build the modelling table, data dictionary, provenance and report.html into a folder.",
+                "With --compare-to, report.html also shows the drift against an earlier build."})
 final class BuildCommand implements Callable<Integer> {
 
     @Mixin
@@ -20,16 +24,27 @@ final class BuildCommand implements Callable<Integer> {
     @Option(names = {"-o", "--out"}, required = true, paramLabel = "DIR", description = "The output folder.")
     Path out;
 
+    @Option(names = "--compare-to", paramLabel = "DIR",
+            description = "An earlier build's folder (may be the --out folder itself) to compare the new matrix with.")
+    Path compareTo;
+
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
     @Override
     public Integer call() {
-        BuildSummary built = recipe.load().build(out, TerminalProgress.forConsole());
+        BuildSummary built = recipe.load().build(out, TerminalProgress.forConsole(), Optional.ofNullable(compareTo));
         var w = spec.commandLine().getOut();
         w.printf("%d rows x %d columns (%d cutoffs) written to %s%n", built.run().rows(),
                 built.compilation().plan().columns().size(), built.compilation().plan().cutoffs().size(), out);
         built.files().forEach(f -> w.println("  " + f.getFileName()));
+        built.drift().ifPresent(d -> {
+            List<String> findings = d.findings(Thresholds.DEFAULT);
+            w.printf("drift against %s: %s (see report.html, or 'quern compare' for thresholds of your own)%n",
+                    compareTo, findings.isEmpty() ? "nothing beyond the default thresholds"
+                            : findings.size() + (findings.size() == 1 ? " finding" : " findings")
+                            + " beyond the default thresholds");
+        });
         return 0;
     }
 }
