@@ -45,7 +45,9 @@ class ReportInBrowserTest {
     static void findBrowserAndBuild() {
         Optional<Path> found = browser();
         if (found.isEmpty()) {
-            String why = "no chromium on the PATH (install Debian's 'chromium' package, or set QUERN_CHROMIUM)";
+            String named = System.getenv("QUERN_CHROMIUM");
+            String why = named != null && !named.isBlank() ? "QUERN_CHROMIUM names no executable file: " + named
+                    : "no chromium on the PATH (install Debian's 'chromium' package, or set QUERN_CHROMIUM)";
             if ("1".equals(System.getenv("QUERN_REQUIRE_BROWSER"))) {
                 fail(why + ", and QUERN_REQUIRE_BROWSER=1 says the browser test must run");
             }
