@@ -14,7 +14,8 @@ import picocli.CommandLine.Spec;
 @Command(name = "compare", mixinStandardHelpOptions = true,
         description = {"Compare two build folders: columns added, removed or retyped, rows per cutoff,",
                 "empty shares, drift per column (PSI over bins of the old build) and provenance.",
-                "Exits " + CompareCommand.BEYOND_THRESHOLDS + " when something goes beyond the thresholds, 0 otherwise."})
+                "Exits " + CompareCommand.BEYOND_THRESHOLDS
+                        + " when something goes beyond the thresholds, 0 otherwise."})
 final class CompareCommand implements Callable<Integer> {
 
     /** The exit code when a finding goes beyond the thresholds: a scheduler stops the month here. */

@@ -58,7 +58,8 @@ public final class Main implements Runnable {
 
     @Override
     public void run() {
-        throw new CommandLine.ParameterException(spec.commandLine(), "name a command: build, check, sql, lineage, compare or sample");
+        throw new CommandLine.ParameterException(spec.commandLine(),
+                "name a command: build, check, sql, lineage, compare or sample");
     }
 
     /** Reports the version Maven stamped into the jar. */

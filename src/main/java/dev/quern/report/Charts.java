@@ -219,7 +219,8 @@ final class Charts {
     }
 
     private static String empty(int width, int height) {
-        return "<text class=\"tick\" x=\"" + width / 2 + "\" y=\"" + height / 2 + "\" text-anchor=\"middle\">no values</text>";
+        return "<text class=\"tick\" x=\"" + width / 2 + "\" y=\"" + height / 2
+                + "\" text-anchor=\"middle\">no values</text>";
     }
 
     private static void axis(StringBuilder svg, double top, double plotH, String yFormat) {

@@ -80,8 +80,9 @@ public final class Compare {
             for (int i = 0; i < labels.size(); i++) {
                 binList.add(new Comparison.Bin(labels.get(i), o[i], n[i]));
             }
-            drift.add(new Comparison.ColumnDrift(c, now.entry(c).orElseThrow().role(), bins.get(c) instanceof Bins.Numeric,
-                    binList, Psi.ofCounts(o, n), share(o[0], oldTally.rows), share(n[0], newTally.rows)));
+            drift.add(new Comparison.ColumnDrift(c, now.entry(c).orElseThrow().role(),
+                    bins.get(c) instanceof Bins.Numeric, binList, Psi.ofCounts(o, n), share(o[0], oldTally.rows),
+                    share(n[0], newTally.rows)));
         }
         List<Comparison.CutoffRows> rows = new ArrayList<>();
         TreeSet<String> cutoffs = new TreeSet<>(oldTally.perCutoff.keySet());

@@ -177,7 +177,8 @@ public record Comparison(String oldName, String newName, List<ColumnChange> colu
             }
             out.append('\n');
         }
-        out.append("\nDrift (PSI over bins of the old build; below 0.10 stable, 0.10-0.25 moderate, above 0.25 large)\n");
+        out.append("\nDrift (PSI over bins of the old build; below 0.10 stable, 0.10-0.25 moderate,")
+                .append(" above 0.25 large)\n");
         int w = Math.max(6, drift.stream().mapToInt(d -> d.column().length()).max().orElse(0));
         out.append("  ").append(pad("column", w)).append("  ").append(pad("psi", 7)).append("  ")
                 .append(pad("reading", 14)).append("  empty share\n");
@@ -215,8 +216,9 @@ public record Comparison(String oldName, String newName, List<ColumnChange> colu
         root.put("provenance_changes", prov);
         List<Object> cols = new ArrayList<>();
         for (ColumnChange c : columnChanges) {
-            cols.add(ordered("column", c.column(), "change", c.change().label(), "old_type",
-                    c.oldType().isEmpty() ? null : c.oldType(), "new_type", c.newType().isEmpty() ? null : c.newType()));
+            cols.add(ordered("column", c.column(), "change", c.change().label(),
+                    "old_type", c.oldType().isEmpty() ? null : c.oldType(),
+                    "new_type", c.newType().isEmpty() ? null : c.newType()));
         }
         root.put("column_changes", cols);
         List<Object> rs = new ArrayList<>();

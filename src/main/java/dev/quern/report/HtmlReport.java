@@ -317,9 +317,11 @@ public final class HtmlReport {
         List<Comparison.ColumnDrift> shifted = sorted.stream()
                 .filter(d -> d.hasPsi() && d.reading() != Psi.Reading.STABLE).toList();
         if (!shifted.isEmpty()) {
-            out.append("<p>Bin shares of the columns that moved (grey earlier, blue now):</p>\n<div class=\"charts\">\n");
+            out.append("<p>Bin shares of the columns that moved (grey earlier, blue now):</p>\n")
+                    .append("<div class=\"charts\">\n");
             for (Comparison.ColumnDrift d : shifted) {
-                out.append("<figure class=\"drift\" data-column=\"").append(esc(d.column())).append("\"><figcaption><code>")
+                out.append("<figure class=\"drift\" data-column=\"").append(esc(d.column()))
+                        .append("\"><figcaption><code>")
                         .append(esc(d.column())).append("</code> <span class=\"note\">PSI ")
                         .append(Comparison.fixed(d.psi())).append("</span></figcaption>")
                         .append(Charts.paired("Bin shares of " + d.column() + ", earlier and now", d.bins()))

@@ -15,7 +15,6 @@ import dev.quern.plan.Lookup;
 import dev.quern.plan.LookupColumn;
 import dev.quern.plan.OutputColumn;
 import dev.quern.plan.Plan;
-import dev.quern.plan.Role;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
@@ -179,7 +178,8 @@ public final class Lineage {
         }
         List<LineageStep> out = new ArrayList<>(steps);
         int at = 0;
-        while (at < out.size() && (out.get(at) instanceof LineageStep.Table || out.get(at) instanceof LineageStep.Join)) {
+        while (at < out.size()
+                && (out.get(at) instanceof LineageStep.Table || out.get(at) instanceof LineageStep.Join)) {
             at++;
         }
         out.add(at, new LineageStep.Filter(column.filter().get(), List.of()));

@@ -41,7 +41,8 @@ class CompareTest {
         Path dir = folder.resolve(name);
         Files.createDirectories(dir);
         List<String> names = new ArrayList<>(List.of("id", "cutoff"));
-        StringBuilder dictionary = new StringBuilder("column,role,type,meaning\nid,key,integer,k\ncutoff,cutoff,date,c\n");
+        StringBuilder dictionary = new StringBuilder("column,role,type,meaning\n")
+                .append("id,key,integer,k\ncutoff,cutoff,date,c\n");
         for (String c : columns) {
             String[] p = c.split(":");
             names.add(p[0]);
@@ -110,8 +111,10 @@ class CompareTest {
     @Test
     void psiUsesTheDecilesOfTheOldValuesAndCountsEveryRowExactly() throws IOException {
         // Old values 1..1000, new values 301..1300: old deciles 100, 200, ..., 900.
-        Path old = build("old", List.of("x:feature:decimal"), cutoffs(1000), row -> List.of(Integer.toString(row + 1)), "aaa");
-        Path now = build("new", List.of("x:feature:decimal"), cutoffs(1000), row -> List.of(Integer.toString(row + 301)), "aaa");
+        Path old = build("old", List.of("x:feature:decimal"), cutoffs(1000),
+                row -> List.of(Integer.toString(row + 1)), "aaa");
+        Path now = build("new", List.of("x:feature:decimal"), cutoffs(1000),
+                row -> List.of(Integer.toString(row + 301)), "aaa");
 
         Comparison.ColumnDrift x = Compare.folders(old, now).drift().get(0);
 
@@ -176,13 +179,15 @@ class CompareTest {
                 new Comparison.CutoffRows("2025-01-28", OptionalLong.of(100), OptionalLong.of(100)),
                 new Comparison.CutoffRows("2025-02-28", OptionalLong.of(100), OptionalLong.of(80)),
                 new Comparison.CutoffRows("2025-03-28", OptionalLong.empty(), OptionalLong.of(50))), c.rows());
-        assertEquals(List.of("cutoff 2025-02-28: 100 -> 80 rows (-20.0%, beyond 10.0%)"), c.findings(Thresholds.DEFAULT));
+        assertEquals(List.of("cutoff 2025-02-28: 100 -> 80 rows (-20.0%, beyond 10.0%)"),
+                c.findings(Thresholds.DEFAULT));
         assertEquals(List.of(), c.findings(new Thresholds(0.25, 0.1, 0.25, false)));
     }
 
     @Test
     void aChangeInTheShareOfEmptyValuesIsAFindingAndDrift() throws IOException {
-        Path old = build("old", List.of("x:feature:integer"), cutoffs(100), row -> List.of(Integer.toString(row % 5)), "aaa");
+        Path old = build("old", List.of("x:feature:integer"), cutoffs(100),
+                row -> List.of(Integer.toString(row % 5)), "aaa");
         Path now = build("new", List.of("x:feature:integer"), cutoffs(100),
                 row -> List.of(row % 5 == 0 ? "" : Integer.toString(row % 5)), "aaa");
 
@@ -205,15 +210,18 @@ class CompareTest {
         Path now = build("newer", List.of("x:feature:integer"), cutoffs(10), row -> List.of("1"), "bbb");
 
         assertEquals(List.of(new Comparison.ProvenanceChange("recipe.sha256", "aaa", "bbb"),
-                new Comparison.ProvenanceChange("source.time_columns[rides.started_at].latest", "2025-12-31", "2026-01-31")),
+                new Comparison.ProvenanceChange("source.time_columns[rides.started_at].latest", "2025-12-31",
+                        "2026-01-31")),
                 Compare.folders(old, now).provenance());
     }
 
     @Test
     @SuppressWarnings("unchecked")
     void theCommandExitsThreeBeyondTheThresholdsAndTheFlagsMoveThem() throws IOException {
-        Path old = build("old", List.of("x:feature:decimal"), cutoffs(1000), row -> List.of(Integer.toString(row + 1)), "aaa");
-        Path now = build("new", List.of("x:feature:decimal"), cutoffs(1000), row -> List.of(Integer.toString(row + 301)), "aaa");
+        Path old = build("old", List.of("x:feature:decimal"), cutoffs(1000),
+                row -> List.of(Integer.toString(row + 1)), "aaa");
+        Path now = build("new", List.of("x:feature:decimal"), cutoffs(1000),
+                row -> List.of(Integer.toString(row + 301)), "aaa");
 
         assertEquals(3, quern("compare", old.toString(), now.toString()));
         assertTrue(out.toString().contains("1 finding goes beyond the thresholds:\n  x: PSI 2.4861 above 0.2500"
@@ -238,7 +246,8 @@ class CompareTest {
         Path old = build("old", List.of("x:feature:integer"), cutoffs(10), row -> List.of("1"), "aaa");
 
         assertEquals(66, quern("compare", old.toString(), folder.resolve("nowhere").toString()));
-        assertTrue(err.toString().contains("nowhere is not a folder: name the --out folder of a build"), err.toString());
+        assertTrue(err.toString().contains("nowhere is not a folder: name the --out folder of a build"),
+                err.toString());
         Files.delete(old.resolve("provenance.json"));
         assertEquals(66, quern("compare", old.toString(), old.toString()));
         assertTrue(err.toString().contains("has no provenance.json"), err.toString());
@@ -265,14 +274,36 @@ class CompareTest {
 
     @Test
     void theDemoBuiltTwiceDoesNotDriftAndTheChangedSourceStopsTheMonth() {
-        assertEquals(0, quern("compare", DemoBuilds.first().toString(), DemoBuilds.second().toString()), out.toString());
+        assertEquals(0, quern("compare", DemoBuilds.first().toString(), DemoBuilds.second().toString()),
+                out.toString());
 
         assertEquals(3, quern("compare", DemoBuilds.first().toString(), DemoBuilds.driftedFolder().toString()));
         String text = out.toString();
-        assertTrue(text.contains("  source.file_sha256  7946e6db04e17ab21515eed5ff0220eea2a4877ff5e6146837c5d5382c4dcd08"
-                + " -> "), text);
+        assertTrue(text.contains("  source.file_sha256  "
+                + "7946e6db04e17ab21515eed5ff0220eea2a4877ff5e6146837c5d5382c4dcd08 -> "), text);
         assertTrue(text.contains("rides_max_distance_km_90d: PSI "), text);
         assertFalse(text.contains("rides_count_30d: PSI"), "ride counts did not change");
-        assertTrue(text.contains("  plan                             0.2454   moderate shift  0.0000 -> 0.0000\n"), text);
+        assertTrue(text.contains("  plan                             0.2454   moderate shift  0.0000 -> 0.0000\n"),
+                text);
+    }
+
+    @Test
+    void aBuildCanCompareWithTheFolderItReplaces() throws IOException {
+        Path target = folder.resolve("monthly");
+        Files.createDirectories(target);
+        for (String f : List.of("matrix.csv", "dictionary.csv", "dictionary.md", "provenance.json", "report.html")) {
+            Files.copy(DemoBuilds.first().resolve(f), target.resolve(f));
+        }
+
+        assertEquals(0, quern("build", DemoBuilds.DEMO.toString(), "--out", target.toString(), "--compare-to",
+                target.toString()), err.toString());
+
+        assertTrue(out.toString().contains("drift against " + target + ": nothing beyond the default thresholds"),
+                out.toString());
+        String html = Files.readString(target.resolve("report.html"));
+        assertTrue(html.contains("<p class=\"ok\">Nothing goes beyond the thresholds.</p>"));
+        assertTrue(html.contains("<p>19 cutoffs have the same rows in both builds.</p>"));
+        assertEquals(Files.readString(DemoBuilds.first().resolve("matrix.csv")),
+                Files.readString(target.resolve("matrix.csv")));
     }
 }

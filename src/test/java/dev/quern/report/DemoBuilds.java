@@ -58,10 +58,12 @@ final class DemoBuilds {
             Path db = ROOT.resolve("drifted.sqlite");
             try {
                 Files.createDirectories(ROOT);
-                Files.copy(Path.of("sample-db/cycle-club.sqlite"), db, java.nio.file.StandardCopyOption.REPLACE_EXISTING);
+                Files.copy(Path.of("sample-db/cycle-club.sqlite"), db,
+                        java.nio.file.StandardCopyOption.REPLACE_EXISTING);
                 try (Connection c = DriverManager.getConnection("jdbc:sqlite:" + db.toAbsolutePath());
                      Statement s = c.createStatement()) {
-                    s.executeUpdate("update rides set distance_km = distance_km * 1.7 where started_at >= '2025-01-01'");
+                    s.executeUpdate("update rides set distance_km = distance_km * 1.7"
+                            + " where started_at >= '2025-01-01'");
                     s.executeUpdate("update plans set plan = 'family' where plan_row_id % 4 = 0");
                 }
             } catch (IOException e) {

@@ -47,8 +47,8 @@ class HtmlReportTest {
     void thereIsOneChartPerFeatureAndLabelNumericOrLevels() throws IOException {
         String html = report(DemoBuilds.first());
         List<String[]> entries = dictionary(DemoBuilds.first());
-        long numeric = entries.stream().filter(e -> isData(e) && (e[2].equals("integer") || e[2].equals("decimal"))).count();
-        long levels = entries.stream().filter(e -> isData(e) && !(e[2].equals("integer") || e[2].equals("decimal"))).count();
+        long numeric = entries.stream().filter(e -> isData(e) && isNumber(e)).count();
+        long levels = entries.stream().filter(e -> isData(e) && !isNumber(e)).count();
 
         assertEquals(29, numeric, "28 numeric features and the label");
         assertEquals(numeric, count(html, "<svg class=\"chart numeric\""));
@@ -91,7 +91,12 @@ class HtmlReportTest {
 
     @Test
     void textIsEscaped() {
-        assertEquals("&lt;b title=&quot;a&#39;s&quot;&gt;x &amp; y&lt;/b&gt;", Html.escape("<b title=\"a's\">x & y</b>"));
+        assertEquals("&lt;b title=&quot;a&#39;s&quot;&gt;x &amp; y&lt;/b&gt;",
+                Html.escape("<b title=\"a's\">x & y</b>"));
+    }
+
+    private static boolean isNumber(String[] entry) {
+        return entry[2].equals("integer") || entry[2].equals("decimal");
     }
 
     private static boolean isData(String[] entry) {

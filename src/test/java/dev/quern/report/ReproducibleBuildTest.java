@@ -53,7 +53,8 @@ class ReproducibleBuildTest {
     }
 
     private static String withoutBuildTime(String html) {
-        return String.join("\n", html.lines().filter(l -> !l.contains("id=\"" + HtmlReport.BUILT_AT_ID + "\"")).toList());
+        String marker = "id=\"" + HtmlReport.BUILT_AT_ID + "\"";
+        return String.join("\n", html.lines().filter(l -> !l.contains(marker)).toList());
     }
 
     @SuppressWarnings("unchecked")
