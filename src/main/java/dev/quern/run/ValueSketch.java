@@ -15,7 +15,8 @@ import java.util.SplittableRandom;
  *
  * <p>Levels are counted exactly until {@code levelLimit} distinct values have been seen; a later, unseen
  * value is only counted as "beyond the limit" (O(1) per value, and honest about what it knows: heavy
- * hitters that first appear late are not tracked). The sample is Vitter's Algorithm R (ACM TOMS 11(1),
+ * hitters that first appear late are not tracked). A number column that goes beyond the limit stops
+ * counting levels altogether and relies on its sample. The sample is Vitter's Algorithm R (ACM TOMS 11(1),
  * 1985): after n values each is in the sample with probability capacity / n. Its random numbers come from
  * a fixed seed, so the same values in the same order give the same sample, and reports built from it are
  * byte-identical between reruns.
@@ -88,7 +89,13 @@ public final class ValueSketch {
             throw new IllegalStateException("a text sketch takes no numbers");
         }
         count++;
-        countLevel(text);
+        if (beyondLimit == 0) {
+            countLevel(text);
+        } else {
+            // Once a number column has more distinct values than levels, its level counts are never used
+            // again (quantiles and charts come from the sample): stop hashing its values.
+            beyondLimit++;
+        }
         if (sampled < capacity) {
             if (sampled == sample.length) {
                 sample = Arrays.copyOf(sample, Math.min(capacity, Math.max(64, sample.length * 2)));
@@ -123,7 +130,10 @@ public final class ValueSketch {
         return beyondLimit == 0;
     }
 
-    /** Values that arrived after the level limit was reached and were not among the levels seen before. */
+    /**
+     * Values not counted in a level: for text, values that arrived after the limit was reached and were
+     * not among the levels seen before; for numbers, every value after the first such one.
+     */
     public long beyondLimit() {
         return beyondLimit;
     }
