@@ -14,8 +14,9 @@ import picocli.CommandLine.Spec;
 
 /** {@code quern build}: the modelling table and its reports. */
 @Command(name = "build", mixinStandardHelpOptions = true,
-        description = {"Build the modelling table, data dictionary, provenance and report.html into a folder.",
-                "With --compare-to, report.html also shows the drift against an earlier build."})
+        description = {"Build the modelling table, data dictionary, provenance and report into a folder.",
+                "Writes matrix.csv, dictionary.csv, dictionary.md, provenance.json and report.html; with "
+                        + "--compare-to, report.html also shows the drift against an earlier build."})
 final class BuildCommand implements Callable<Integer> {
 
     @Mixin

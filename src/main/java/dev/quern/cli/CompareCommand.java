@@ -12,10 +12,11 @@ import picocli.CommandLine.Spec;
 
 /** {@code quern compare}: what changed between two builds, and whether it is too much. */
 @Command(name = "compare", mixinStandardHelpOptions = true,
-        description = {"Compare two build folders: columns added, removed or retyped, rows per cutoff,",
-                "empty shares, drift per column (PSI over bins of the old build) and provenance.",
-                "Exits " + CompareCommand.BEYOND_THRESHOLDS
-                        + " when something goes beyond the thresholds, 0 otherwise."})
+        description = {"Compare two builds; exit " + CompareCommand.BEYOND_THRESHOLDS
+                        + " when a change goes beyond the thresholds.",
+                "Columns added, removed or retyped, rows per cutoff, empty shares, drift per column (PSI over "
+                        + "bins of the old build) and the recipe and source fingerprints from provenance.json. "
+                        + "Exit 0 when nothing goes beyond the thresholds."})
 final class CompareCommand implements Callable<Integer> {
 
     /** The exit code when a finding goes beyond the thresholds: a scheduler stops the month here. */

@@ -13,8 +13,9 @@ import picocli.CommandLine.Spec;
 
 /** {@code quern lineage}: where output columns come from, or which columns a source column feeds. */
 @Command(name = "lineage", mixinStandardHelpOptions = true,
-        description = {"Show where output columns come from: source table and columns, joins along links,",
-                "time rule, measure and recipe line. With --from, every column a source column feeds."})
+        description = {"Show where output columns come from, or which columns a source feeds.",
+                "Each column's chain: source table and columns, joins along links, time rule, measure, and "
+                        + "the recipe line. With --from, every column a source column (or table) feeds, and how."})
 final class LineageCommand implements Callable<Integer> {
 
     @Mixin
