@@ -7,9 +7,15 @@ import dev.quern.plan.Plan;
 import dev.quern.plan.Planner;
 import dev.quern.recipe.Recipe;
 import dev.quern.recipe.RecipeReader;
+import dev.quern.report.BuildFiles;
+import dev.quern.report.Compare;
+import dev.quern.report.Comparison;
 import dev.quern.report.DataDictionary;
+import dev.quern.report.HtmlReport;
+import dev.quern.report.Lineage;
 import dev.quern.report.Provenance;
 import dev.quern.report.RulesReport;
+import dev.quern.report.Thresholds;
 import dev.quern.run.RuleOutcome;
 import dev.quern.run.RuleRunner;
 import dev.quern.sql.RuleQueries;
@@ -56,6 +62,7 @@ public final class Quern {
     public static final String DICTIONARY_MD = "dictionary.md";
     public static final String PROVENANCE = "provenance.json";
     public static final String RULES = "rules.md";
+    public static final String REPORT = "report.html";
 
     private final Recipe recipe;
     private final Path recipeFolder;
@@ -119,6 +126,16 @@ public final class Quern {
 
     /** Builds the modelling table and its reports into {@code folder}; all or nothing. */
     public BuildSummary build(Path folder, Progress progress) {
+        return build(folder, progress, Optional.empty());
+    }
+
+    /**
+     * Builds as {@link #build(Path, Progress)} does, and when {@code compareTo} names an earlier build's
+     * folder (it may be {@code folder} itself), compares the new matrix with it; the drift goes into
+     * report.html and the summary.
+     */
+    public BuildSummary build(Path folder, Progress progress, Optional<Path> compareTo) {
+        Optional<BuildFiles> earlier = compareTo.map(BuildFiles::read);
         Source source = source();
         Map<String, Duration> timings = new LinkedHashMap<>();
         Instant builtAt = Instant.now();
@@ -150,15 +167,27 @@ public final class Quern {
             timings.put("query", run.queryTime());
             timings.put("write", run.writeTime());
             progress.stage("writing reports");
-            DataDictionary dictionary = new DataDictionary(table, run);
-            out.write(DICTIONARY_CSV, dictionary.csv());
+            Lineage lineage = Lineage.of(table);
+            DataDictionary dictionary = new DataDictionary(table, run, lineage);
+            String dictionaryCsv = dictionary.csv();
+            out.write(DICTIONARY_CSV, dictionaryCsv);
             out.write(DICTIONARY_MD, dictionary.markdown());
             out.write(RULES, RulesReport.markdown(recipe.name().text(), rules, compilation.schema(), eventTimes()));
-            out.write(PROVENANCE, Provenance.render(table, compilation.schema(), run, rules,
+            String provenance = Provenance.render(table, compilation.schema(), run, rules,
                     new Provenance.Facts(recipe.file(), recipeSha256, Version.current(), source.display(),
-                            source.file().map(Quern::sha256), builtAt, timings)));
+                            source.file().map(Quern::sha256), builtAt, timings));
+            out.write(PROVENANCE, provenance);
+            Optional<Comparison> drift = Optional.empty();
+            if (earlier.isPresent()) {
+                progress.stage("comparing with " + earlier.get().name());
+                drift = Optional.of(Compare.of(earlier.get(),
+                        BuildFiles.of(folder.toString(), out.pending(MATRIX), dictionaryCsv, provenance)));
+            }
+            out.write(REPORT, HtmlReport.render(table, run, lineage,
+                    new HtmlReport.Facts(recipe.file(), recipeSha256, Version.current(), source.display(), builtAt),
+                    drift, Thresholds.DEFAULT));
             List<Path> files = out.commit();
-            return new BuildSummary(compilation, run, rules, files, table.columns());
+            return new BuildSummary(compilation, run, rules, files, table.columns(), drift);
         } catch (IOException e) {
             throw QuernException.output("writing to " + folder + " failed: " + e.getMessage(), e);
         } catch (SQLException e) {

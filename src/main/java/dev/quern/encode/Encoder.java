@@ -225,6 +225,7 @@ public final class Encoder {
             progress.rows(rows[0]);
             csv.flush();
         }
-        return new RunResult(raw.rows(), raw.rowsPerCutoff(), stats, raw.queryTime(), raw.writeTime());
+        return new RunResult(raw.rows(), raw.rowsPerCutoff(), stats, raw.queryTime(), raw.writeTime(),
+                raw.labelPerCutoff());
     }
 }

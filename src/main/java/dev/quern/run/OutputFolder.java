@@ -58,6 +58,18 @@ public final class OutputFolder implements AutoCloseable {
         }
     }
 
+    /**
+     * The temporary file that holds {@code name} until commit, to read back an output already written and
+     * closed (the build compares its new matrix with an earlier one before anything is renamed).
+     */
+    public Path pending(String name) {
+        Path temp = pending.get(name);
+        if (temp == null) {
+            throw new IllegalStateException(name + " is not a pending output of " + folder);
+        }
+        return temp;
+    }
+
     /** Moves every pending file to its final name; returns the final paths in the order written. */
     public List<Path> commit() {
         List<Path> done = new ArrayList<>();
