@@ -1,5 +1,7 @@
 package dev.quern;
 
+import dev.quern.audit.Audit;
+import dev.quern.audit.AuditReport;
 import dev.quern.plan.Plan;
 import dev.quern.plan.Planner;
 import dev.quern.recipe.Recipe;
@@ -27,6 +29,7 @@ import java.sql.Connection;
 import java.sql.SQLException;
 import java.time.Duration;
 import java.time.Instant;
+import java.util.ArrayList;
 import java.util.HexFormat;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -47,6 +50,8 @@ public final class Quern {
     public static final String DICTIONARY_CSV = "dictionary.csv";
     public static final String DICTIONARY_MD = "dictionary.md";
     public static final String PROVENANCE = "provenance.json";
+    public static final String AUDIT_JSON = "audit.json";
+    public static final String AUDIT_MD = "audit.md";
 
     private final Recipe recipe;
     private final Path recipeFolder;
@@ -98,6 +103,7 @@ public final class Quern {
         try (Connection connection = source.open(); OutputFolder out = new OutputFolder(folder)) {
             progress.stage("checking the recipe against " + source.engine().label());
             Compilation compilation = compile(source, connection, timings);
+            Audit leakage = Audit.of(recipe, compilation.plan(), compilation.schema());
             progress.stage("building " + MATRIX);
             RunResult run;
             try (Writer matrix = out.open(MATRIX)) {
@@ -105,15 +111,27 @@ public final class Quern {
             }
             timings.put("query", run.queryTime());
             timings.put("write", run.writeTime());
+            progress.stage("auditing for leakage");
+            long auditStart = System.nanoTime();
+            AuditReport audit = leakage.run(connection, out.pending(MATRIX));
+            timings.put("audit", Duration.ofNanos(System.nanoTime() - auditStart));
+            out.write(AUDIT_JSON, audit.json());
+            out.write(AUDIT_MD, audit.markdown());
+            if (audit.blocked()) {
+                // The audit is the one output of a blocked build: no matrix, and nothing that describes one.
+                out.discard(MATRIX);
+                out.commit();
+                throw leakage(audit, folder);
+            }
             progress.stage("writing reports");
-            DataDictionary dictionary = new DataDictionary(compilation.plan(), run);
+            DataDictionary dictionary = new DataDictionary(audit.annotate(compilation.plan()), run);
             out.write(DICTIONARY_CSV, dictionary.csv());
             out.write(DICTIONARY_MD, dictionary.markdown());
             out.write(PROVENANCE, Provenance.render(compilation.plan(), compilation.schema(), run,
                     new Provenance.Facts(recipe.file(), sha256(recipe.text()), Version.current(), source.display(),
                             source.file().map(Quern::sha256), builtAt, timings)));
             List<Path> files = out.commit();
-            return new BuildSummary(compilation, run, files);
+            return new BuildSummary(compilation, run, audit, files);
         } catch (IOException e) {
             throw QuernException.output("writing to " + folder + " failed: " + e.getMessage(), e);
         } catch (SQLException e) {
@@ -123,11 +141,55 @@ public final class Quern {
         }
     }
 
+    /**
+     * Runs the leakage audit alone: builds the matrix into a temporary file (streamed, so memory stays flat;
+     * the disk holds one matrix), audits it and removes it. Writes nothing else.
+     */
+    public AuditReport audit(Progress progress) {
+        Source source = source();
+        Path temp = null;
+        try (Connection connection = source.open()) {
+            progress.stage("checking the recipe against " + source.engine().label());
+            Compilation compilation = compile(source, connection, new LinkedHashMap<>());
+            Audit leakage = Audit.of(recipe, compilation.plan(), compilation.schema());
+            progress.stage("building the matrix to audit");
+            temp = Files.createTempFile("quern-audit-", ".csv");
+            try (Writer matrix = Files.newBufferedWriter(temp, StandardCharsets.UTF_8)) {
+                MatrixWriter.write(compilation.query(), connection, matrix, progress);
+            }
+            progress.stage("auditing for leakage");
+            return leakage.run(connection, temp);
+        } catch (IOException e) {
+            throw QuernException.output("cannot write the temporary matrix to audit: " + e.getMessage(), e);
+        } catch (SQLException e) {
+            throw QuernException.data("closing the source failed: " + e.getMessage(), e);
+        } finally {
+            progress.done();
+            if (temp != null) {
+                try {
+                    Files.deleteIfExists(temp);
+                } catch (IOException e) {
+                    // A temporary file left behind is not worth failing the audit for.
+                }
+            }
+        }
+    }
+
+    /** The failure of a build the audit blocked: each open blocking finding, then where to read more. */
+    static QuernException leakage(AuditReport audit, Path folder) {
+        List<Diagnostic> diagnostics = new ArrayList<>(audit.blocking());
+        diagnostics.add(Diagnostic.at(Position.NONE, "the leakage audit blocked the build: " + MATRIX
+                + " was not written; see " + folder.resolve(AUDIT_MD) + ", and fix each blocking finding or"
+                + " acknowledge it under audit.acknowledge with a reason"));
+        return new QuernException(Failure.LEAKAGE, diagnostics);
+    }
+
     private Compilation compile(Source source, Connection connection, Map<String, Duration> timings) {
         long t0 = System.nanoTime();
         SourceSchema schema = new SchemaReader(connection, source.engine()).read(recipe);
         long t1 = System.nanoTime();
         Plan plan = Planner.plan(recipe, schema);
+        Audit.checkAcknowledgements(recipe, plan);
         CompiledQuery query = SqlCompiler.compile(plan);
         long t2 = System.nanoTime();
         timings.put("schema", Duration.ofNanos(t1 - t0));

@@ -30,6 +30,7 @@ final class BuildCommand implements Callable<Integer> {
         w.printf("%d rows x %d columns (%d cutoffs) written to %s%n", built.run().rows(),
                 built.compilation().plan().columns().size(), built.compilation().plan().cutoffs().size(), out);
         built.files().forEach(f -> w.println("  " + f.getFileName()));
+        w.println("leakage audit " + built.audit().summary() + " (see " + dev.quern.Quern.AUDIT_MD + ")");
         return 0;
     }
 }

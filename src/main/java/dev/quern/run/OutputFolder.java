@@ -58,6 +58,31 @@ public final class OutputFolder implements AutoCloseable {
         }
     }
 
+    /**
+     * The temporary file that becomes {@code name} on commit, for a stage that reads an output before it is
+     * committed (the leakage audit reads the matrix back).
+     */
+    public Path pending(String name) {
+        Path temp = pending.get(name);
+        if (temp == null) {
+            throw new IllegalStateException(name + " is not pending in " + folder);
+        }
+        return temp;
+    }
+
+    /** Drops a pending output: its temporary file is removed and it is not committed. */
+    public void discard(String name) {
+        Path temp = pending.remove(name);
+        if (temp == null) {
+            return;
+        }
+        try {
+            Files.deleteIfExists(temp);
+        } catch (IOException e) {
+            throw QuernException.output("cannot remove the temporary file " + temp + ": " + e.getMessage(), e);
+        }
+    }
+
     /** Moves every pending file to its final name; returns the final paths in the order written. */
     public List<Path> commit() {
         List<Path> done = new ArrayList<>();
