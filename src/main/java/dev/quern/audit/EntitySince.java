@@ -4,6 +4,7 @@ import dev.quern.QuernException;
 import dev.quern.plan.Cohort;
 import dev.quern.plan.TimeRef;
 import dev.quern.run.ValueFormat;
+import dev.quern.schema.Engine;
 import dev.quern.schema.ValueType;
 import java.sql.Connection;
 import java.time.LocalDate;
@@ -44,7 +45,7 @@ final class EntitySince {
         return new EntitySince("", "", new long[0], new int[0]);
     }
 
-    static EntitySince read(Cohort cohort, Connection connection, dev.quern.schema.Engine engine) {
+    static EntitySince read(Cohort cohort, Connection connection, Engine engine) {
         if (cohort.since().isEmpty()) {
             return none();
         }

@@ -49,6 +49,9 @@ import org.jooq.impl.DSL;
  * ({@code time-order}), of its update time ({@code late-update}, and the evidence of {@code current-state}),
  * or of the time a value read from it was filled in ({@code filled-later}). When flags are set, a second query
  * fetches the first few example rows.
+ *
+ * <p>The restatement must follow the plan: when blocks, lookups or the cohort carry filters ({@code where}),
+ * they belong in these queries too, or the audit would count rows the matrix never read.
  */
 final class SourceRows {
 

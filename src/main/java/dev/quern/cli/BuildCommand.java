@@ -1,6 +1,7 @@
 package dev.quern.cli;
 
 import dev.quern.BuildSummary;
+import dev.quern.Quern;
 import dev.quern.run.TerminalProgress;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
@@ -30,7 +31,7 @@ final class BuildCommand implements Callable<Integer> {
         w.printf("%d rows x %d columns (%d cutoffs) written to %s%n", built.run().rows(),
                 built.compilation().plan().columns().size(), built.compilation().plan().cutoffs().size(), out);
         built.files().forEach(f -> w.println("  " + f.getFileName()));
-        w.println("leakage audit " + built.audit().summary() + " (see " + dev.quern.Quern.AUDIT_MD + ")");
+        w.println("leakage audit " + built.audit().summary() + " (see " + Quern.AUDIT_MD + ")");
         return 0;
     }
 }
