@@ -107,6 +107,15 @@ class PlantedLeaksTest {
         detect("members.status looked up without acknowledgement", Check.CURRENT_STATE, "status", report,
                 Set.of(Check.CURRENT_STATE));
         assertTrue(report.blocked());
+        // members declares updated_at: the finding counts the member rows changed after their cutoff.
+        Finding status = report.findings(Check.CURRENT_STATE).stream()
+                .filter(f -> f.columns().equals(List.of("status"))).findFirst().orElseThrow();
+        assertTrue((Long) status.counts().get("rows_updated_after_cutoff") > 0, status.counts().toString());
+        for (String example : status.examples()) {
+            String cutoff = example.replaceAll(".* at cutoff (\\S+): .*", "$1");
+            String updated = example.replaceAll(".*updated_at (\\S+) .*", "$1");
+            assertTrue(updated.compareTo(cutoff) > 0, example);
+        }
     }
 
     /**
@@ -158,10 +167,33 @@ class PlantedLeaksTest {
                 "alter table payments add column updated_at text",
                 "update payments set updated_at = paid_at",
                 "update payments set updated_at = datetime(paid_at, '+40 days') where status = 'refunded'");
-        String text = demo.replace("    time: paid_at\n", "    time: paid_at\n    updated: updated_at\n");
+        String text = withFeature(demo.replace("    time: paid_at\n", "    time: paid_at\n    updated: updated_at\n"),
+                "  - lookup: payments.status\n    name: last_payment_status\n");
         AuditReport report = build(recipe("refunds", text, db)).audit(a -> a);
         detect("payments rewritten 40 days later by a refund (updated_at)", Check.LATE_UPDATE, "payments_count_30d",
                 report, Set.of());
+        assertTrue(report.findings(Check.LATE_UPDATE).stream()
+                        .anyMatch(f -> f.columns().equals(List.of("last_payment_status"))),
+                "the latest payment, looked up, is checked too:\n" + report.markdown());
+    }
+
+    /**
+     * Stations keep no history, but when they declare an update time and no station read was updated after
+     * its cutoff, every value read is as it was then: the current-state finding is only a note.
+     */
+    @Test
+    void aCurrentStateTableWhoseRowsWereNotUpdatedSinceIsOnlyANote() {
+        Path db = copyOfClub("stations-unchanged",
+                "alter table stations add column updated_at text",
+                "update stations set updated_at = '2023-12-01 09:00:00'");
+        String text = demo.replace("  stations:\n    key: station_id\n",
+                "  stations:\n    key: station_id\n    updated: updated_at\n");
+        AuditReport report = build(recipe("stations-unchanged", text, db)).audit(a -> a);
+        Finding zone = report.findings(Check.CURRENT_STATE).stream()
+                .filter(f -> f.columns().equals(List.of("start_station_distinct_zone_90d"))).findFirst().orElseThrow();
+        assertEquals(Severity.NOTE, zone.severity(), zone.summary());
+        assertEquals(0L, zone.counts().get("rows_updated_after_cutoff"));
+        assertTrue((Long) zone.counts().get("rows_read") > 1000, zone.counts().toString());
     }
 
     @Test
@@ -238,7 +270,7 @@ class PlantedLeaksTest {
                 throw new UncheckedIOException(e);
             }
         }).audit(a -> a);
-        detect("a row at 2025-06-30 for a member who joined later (in the matrix)", Check.COHORT, "member_id",
+        detect("a matrix row at 2025-06-30 for a member who joined later", Check.COHORT, "member_id",
                 report, Set.of(Check.COHORT));
         assertTrue(report.findings(Check.COHORT).get(0).examples().get(0)
                 .startsWith("member_id " + member + " at cutoff 2025-06-30: joined_on 2025-"));
