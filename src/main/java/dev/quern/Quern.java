@@ -121,7 +121,7 @@ public final class Quern {
                 // The audit is the one output of a blocked build: no matrix, and nothing that describes one.
                 out.discard(MATRIX);
                 out.commit();
-                throw leakage(audit, folder);
+                throw blockedBy(audit, folder);
             }
             progress.stage("writing reports");
             DataDictionary dictionary = new DataDictionary(audit.annotate(compilation.plan()), run);
@@ -176,7 +176,7 @@ public final class Quern {
     }
 
     /** The failure of a build the audit blocked: each open blocking finding, then where to read more. */
-    static QuernException leakage(AuditReport audit, Path folder) {
+    static QuernException blockedBy(AuditReport audit, Path folder) {
         List<Diagnostic> diagnostics = new ArrayList<>(audit.blocking());
         diagnostics.add(Diagnostic.at(Position.NONE, "the leakage audit blocked the build: " + MATRIX
                 + " was not written; see " + folder.resolve(AUDIT_MD) + ", and fix each blocking finding or"

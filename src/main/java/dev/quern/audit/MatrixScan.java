@@ -7,6 +7,7 @@ import dev.quern.run.MatrixWriter;
 import dev.quern.schema.ValueType;
 import java.io.IOException;
 import java.io.Reader;
+import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -106,7 +107,7 @@ final class MatrixScan {
                 }
                 row++;
             }
-        } catch (IOException | RuntimeException e) {
+        } catch (IOException | UncheckedIOException e) {
             throw unreadable(e);
         }
         repeats.endCutoff();
@@ -195,7 +196,7 @@ final class MatrixScan {
                 }
                 row++;
             }
-        } catch (IOException | RuntimeException e) {
+        } catch (IOException | UncheckedIOException e) {
             throw unreadable(e);
         }
         return values;
@@ -274,7 +275,7 @@ final class MatrixScan {
                     }
                 }
             }
-        } catch (IOException | RuntimeException e) {
+        } catch (IOException | UncheckedIOException e) {
             throw unreadable(e);
         }
         return new ConfirmedRepeats(repeated, examples);
@@ -289,7 +290,7 @@ final class MatrixScan {
 
     private QuernException unreadable(Exception e) {
         return QuernException.output("the leakage audit could not read back the matrix " + file + ": "
-                + e.getMessage(), e instanceof IOException io ? io : new IOException(e));
+                + e.getMessage(), e);
     }
 
     private enum Kind { NUMBER, TEXT, OTHER }
