@@ -11,9 +11,8 @@ import picocli.CommandLine.Command;
 /** The {@code quern} command: a thin shell over {@link dev.quern.Quern}. */
 @Command(name = "quern", mixinStandardHelpOptions = true, versionProvider = Main.VersionProvider.class,
         description = "Compiles a feature recipe into SQL and builds a point-in-time modelling table.",
-        subcommands = {BuildCommand.class, CheckCommand.class, SqlCommand.class, LineageCommand.class,
-                CompareCommand.class, SampleCommand.class,
-                CommandLine.HelpCommand.class})
+        subcommands = {BuildCommand.class, AuditCommand.class, CheckCommand.class, SqlCommand.class,
+                LineageCommand.class, CompareCommand.class, SampleCommand.class, CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
 
     @CommandLine.Spec
@@ -59,7 +58,7 @@ public final class Main implements Runnable {
     @Override
     public void run() {
         throw new CommandLine.ParameterException(spec.commandLine(),
-                "name a command: build, check, sql, lineage, compare or sample");
+                "name a command: build, audit, check, sql, lineage, compare or sample");
     }
 
     /** Reports the version Maven stamped into the jar. */
