@@ -11,7 +11,7 @@ import picocli.CommandLine.Command;
 /** The {@code quern} command: a thin shell over {@link dev.quern.Quern}. */
 @Command(name = "quern", mixinStandardHelpOptions = true, versionProvider = Main.VersionProvider.class,
         description = "Compiles a feature recipe into SQL and builds a point-in-time modelling table.",
-        subcommands = {BuildCommand.class, CheckCommand.class, SqlCommand.class, SampleCommand.class,
+        subcommands = {BuildCommand.class, CheckCommand.class, SqlCommand.class, SampleCommand.class, LoadCommand.class,
                 CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
 
@@ -57,7 +57,7 @@ public final class Main implements Runnable {
 
     @Override
     public void run() {
-        throw new CommandLine.ParameterException(spec.commandLine(), "name a command: build, check, sql or sample");
+        throw new CommandLine.ParameterException(spec.commandLine(), "name a command: build, check, sql, sample or load");
     }
 
     /** Reports the version Maven stamped into the jar. */

@@ -24,6 +24,16 @@ final class MariaDbSql extends EngineSql {
         return DSL.field("datediff({0}, {1})", Object.class, cutoff, dayOf(time, storage));
     }
 
+    /**
+     * jOOQ renders a cast to DOUBLE as {@code cast(x as decimal)} for MariaDB, which is DECIMAL(10,0) and
+     * rounds every value to an integer; and avg of an integer or decimal returns DECIMAL with only four more
+     * digits. {@code cast(x as double)} (MariaDB 10.4.5+, MySQL 8.0.17+) averages in double precision.
+     */
+    @Override
+    Field<Object> mean(Field<Object> value) {
+        return DSL.avg(DSL.field("cast({0} as double)", java.math.BigDecimal.class, value)).coerce(Object.class);
+    }
+
     /** stddev_samp accumulates with Welford's method in both. */
     @Override
     boolean hasStableStddev() {
