@@ -119,7 +119,8 @@ public final class DatabaseLoader {
                 url = Engine.DUCKDB.urlPrefix() + file.get();
             }
         }
-        return DriverManager.getConnection(url, properties);
+        return target.engine() == Engine.DUCKDB ? DriverManager.getConnection(url, properties)
+                : target.connect(properties);
     }
 
     private static void createParent(Path file) {

@@ -5,6 +5,9 @@ import java.sql.PreparedStatement;
 import java.sql.ResultSet;
 import java.sql.SQLException;
 import java.sql.Statement;
+import java.time.LocalDate;
+import java.time.LocalDateTime;
+import java.time.format.DateTimeParseException;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -126,39 +129,87 @@ final class SqliteTables {
         return columns;
     }
 
-    /** Counts per column of each storage class and of valid dates and times, in one scan of the table. */
+    /**
+     * Counts per column of each storage class and of texts shaped like dates and times, in one scan; the
+     * shaped columns are then read once more and parsed strictly ('2025-02-30' is no date), which costs far
+     * less than SQLite's date functions on every value.
+     */
     private Profile profile(String table, List<String[]> columns) throws SQLException {
         StringBuilder sql = new StringBuilder("select count(*)");
         for (String[] column : columns) {
             String c = quote(column[0]);
+            String text = "typeof(" + c + ") = 'text'";
             sql.append(", sum(typeof(").append(c).append(") = 'integer')")
                     .append(", sum(typeof(").append(c).append(") = 'real')")
-                    .append(", sum(typeof(").append(c).append(") = 'text')")
+                    .append(", sum(").append(text).append(")")
                     .append(", sum(typeof(").append(c).append(") = 'blob')")
-                    // date() normalises what it reads ('2025-02-30' becomes '2025-03-02'): equal means valid.
-                    .append(", sum(typeof(").append(c).append(") = 'text' and length(").append(c)
-                    .append(") = 10 and date(").append(c).append(") = ").append(c).append(")")
-                    .append(", sum(typeof(").append(c).append(") = 'text' and length(").append(c)
-                    .append(") >= 19 and substr(").append(c).append(", 11, 1) in (' ', 'T') and datetime(substr(")
-                    .append(c).append(", 1, 19)) = replace(substr(").append(c).append(", 1, 19), 'T', ' ')")
-                    .append(" and (length(").append(c).append(") = 19 or (length(").append(c)
-                    .append(") between 21 and 29 and substr(").append(c).append(", 20, 1) = '.' and substr(")
-                    .append(c).append(", 21) not glob '*[^0-9]*')))")
-                    .append(", sum(typeof(").append(c).append(") = 'text' and length(").append(c).append(") > 19)")
-                    .append(", max(case when typeof(").append(c).append(") = 'text' then length(").append(c)
-                    .append(") end)");
+                    .append(", sum(").append(text).append(" and ").append(c).append(" glob '").append(DATE_SHAPE)
+                    .append("')")
+                    .append(", sum(").append(text).append(" and ").append(c).append(" glob '").append(DATE_SHAPE)
+                    .append("[ T][0-2][0-9]:[0-5][0-9]:[0-6][0-9]*')")
+                    .append(", sum(").append(text).append(" and length(").append(c).append(") > 19)")
+                    .append(", max(case when ").append(text).append(" then length(").append(c).append(") end)");
         }
         sql.append(" from ").append(quote(table));
+        long rows;
+        long[][] counts = new long[columns.size()][8];
         try (Statement s = sqlite.createStatement(); ResultSet rs = s.executeQuery(sql.toString())) {
             rs.next();
-            long rows = rs.getLong(1);
-            long[][] counts = new long[columns.size()][8];
+            rows = rs.getLong(1);
             for (int i = 0; i < columns.size(); i++) {
                 for (int j = 0; j < 8; j++) {
                     counts[i][j] = rs.getLong(2 + i * 8 + j);
                 }
             }
-            return new Profile(table, columns, rows, counts);
+        }
+        for (int i = 0; i < columns.size(); i++) {
+            long filled = counts[i][0] + counts[i][1] + counts[i][2] + counts[i][3];
+            boolean dates = filled > 0 && counts[i][4] == filled;
+            boolean times = filled > 0 && counts[i][5] == filled;
+            if ((dates || times) && !allParse(table, columns.get(i)[0], dates)) {
+                counts[i][4] = 0;
+                counts[i][5] = 0;
+            }
+        }
+        return new Profile(table, columns, rows, counts);
+    }
+
+    private static final String DATE_SHAPE = "[0-9][0-9][0-9][0-9]-[0-1][0-9]-[0-3][0-9]";
+
+    private boolean allParse(String table, String column, boolean dates) throws SQLException {
+        try (Statement s = sqlite.createStatement();
+             ResultSet rs = s.executeQuery("select " + quote(column) + " from " + quote(table)
+                     + " where " + quote(column) + " is not null")) {
+            while (rs.next()) {
+                if (!(dates ? parsesAsDate(rs.getString(1)) : parsesAsTimestamp(rs.getString(1)))) {
+                    return false;
+                }
+            }
+        }
+        return true;
+    }
+
+    /** {@code YYYY-MM-DD}, a day that exists. */
+    static boolean parsesAsDate(String text) {
+        try {
+            LocalDate.parse(text);
+            return text.length() == 10;
+        } catch (DateTimeParseException e) {
+            return false;
+        }
+    }
+
+    /** {@code YYYY-MM-DD HH:MM:SS} or with a {@code T}, with up to nine digits of a second after a point. */
+    static boolean parsesAsTimestamp(String text) {
+        if (text.length() < 19 || text.length() > 29 || text.length() == 20 || text.charAt(10) == 'T'
+                && text.indexOf(' ') >= 0) {
+            return false;
+        }
+        try {
+            LocalDateTime.parse(text.replace(' ', 'T'));
+            return true;
+        } catch (DateTimeParseException e) {
+            return false;
         }
     }
 

@@ -53,9 +53,10 @@ public final class MatrixWriter {
                 String[] record = new String[columns.size()];
                 try (ResultSet rs = statement.executeQuery(query.sql())) {
                     firstRow = System.nanoTime();
+                    int[] types = ValueFormat.readTypes(rs.getMetaData(), query.plan().engine());
                     while (rs.next()) {
                         for (int i = 0; i < record.length; i++) {
-                            Object value = rs.getObject(i + 1);
+                            Object value = ValueFormat.read(rs, i + 1, types[i]);
                             record[i] = ValueFormat.format(value, columns.get(i).type());
                             stats.get(i).add(value, record[i]);
                         }

@@ -4,10 +4,14 @@ import dev.quern.Diagnostics;
 import dev.quern.Failure;
 import dev.quern.Position;
 import dev.quern.QuernException;
+import java.sql.Connection;
+import java.sql.DriverManager;
+import java.sql.SQLException;
 import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.Objects;
+import java.util.Properties;
 import java.util.function.UnaryOperator;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
@@ -103,6 +107,33 @@ public final class ConnectionUrl {
         m.appendTail(out);
         missing.throwIfAny(Failure.RECIPE);
         return out.toString();
+    }
+
+    /**
+     * Connects. Credentials named as URL parameters ({@code password=${PGPASSWORD}}) are handed to the driver
+     * as connection properties, not inside the URL: drivers write the URL to their logs (PostgreSQL's at
+     * FINE: "Connecting with URL"), and a secret must not follow it there.
+     */
+    public Connection connect(Properties properties) throws SQLException {
+        Properties all = new Properties();
+        all.putAll(properties);
+        StringBuilder rest = new StringBuilder();
+        Matcher m = SECRET_PARAMETER.matcher(written);
+        int from = 0;
+        while (m.find()) {
+            Matcher variable = VARIABLE.matcher(m.group(2));
+            if (variable.matches()) {
+                rest.append(written, from, m.start());
+                from = m.end();
+                String value = environment.apply(variable.group(1));
+                if (value != null) {
+                    all.setProperty(m.group(1).substring(0, m.group(1).length() - 1), value);
+                }
+            }
+        }
+        rest.append(written.substring(from));
+        String withoutSecrets = rest.toString().replaceAll("([?;&])[&;]+", "$1").replaceAll("[?&;]+$", "");
+        return DriverManager.getConnection(of(withoutSecrets, position, environment).expand(), all);
     }
 
     /**

@@ -100,15 +100,15 @@ public final class Source {
                 case DUCKDB -> openDuckDb();
                 // PostgreSQL: every later transaction of the session, including each autocommitted statement,
                 // is READ ONLY on the server, whatever the driver's readOnlyMode does with setReadOnly.
-                case POSTGRES -> readOnly(DriverManager.getConnection(url.expand(), new Properties()),
+                case POSTGRES -> readOnly(url.connect(new Properties()),
                         "set session characteristics as transaction read only");
                 // MariaDB and MySQL: the session's transaction access mode; writes then fail with
                 // "Cannot execute statement in a READ ONLY transaction". The driver's setReadOnly is only a hint.
-                case MYSQL -> readOnly(DriverManager.getConnection(url.expand(), new Properties()),
+                case MYSQL -> readOnly(url.connect(new Properties()),
                         "set session transaction read only");
                 // MariaDB's split-materialized optimisation computes a grouped block again for every cohort row
                 // it is joined to (all cutoffs each time): the demo recipe took minutes instead of seconds.
-                case MARIADB -> readOnly(DriverManager.getConnection(url.expand(), new Properties()),
+                case MARIADB -> readOnly(url.connect(new Properties()),
                         "set session transaction read only",
                         "set session optimizer_switch = 'split_materialized=off'");
             };
