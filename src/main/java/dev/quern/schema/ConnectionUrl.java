@@ -115,6 +115,7 @@ public final class ConnectionUrl {
      * FINE: "Connecting with URL"), and a secret must not follow it there.
      */
     public Connection connect(Properties properties) throws SQLException {
+        expand(); // stops, naming it, if a variable is not set
         Properties all = new Properties();
         all.putAll(properties);
         StringBuilder rest = new StringBuilder();
@@ -125,10 +126,8 @@ public final class ConnectionUrl {
             if (variable.matches()) {
                 rest.append(written, from, m.start());
                 from = m.end();
-                String value = environment.apply(variable.group(1));
-                if (value != null) {
-                    all.setProperty(m.group(1).substring(0, m.group(1).length() - 1), value);
-                }
+                all.setProperty(m.group(1).substring(0, m.group(1).length() - 1),
+                        environment.apply(variable.group(1)));
             }
         }
         rest.append(written.substring(from));
