@@ -61,9 +61,9 @@ public final class Source {
         return ConnectionUrl.display(url);
     }
 
-    /** The database file, for SQLite sources and DuckDB sources that are one. */
+    /** The database file, for SQLite sources and DuckDB sources that are one (not a folder of files). */
     public Optional<Path> file() {
-        return databaseFile(url.engine(), url.expand(), baseDirectory);
+        return databaseFile(url.engine(), url.expand(), baseDirectory).filter(p -> !Files.isDirectory(p));
     }
 
     /**
@@ -145,17 +145,22 @@ public final class Source {
     /**
      * DuckDB opens a file database with {@code duckdb.read_only}, which the engine enforces ("Cannot execute
      * statement of type INSERT ... in read-only mode"). An in-memory database cannot be opened read-only,
-     * and holds nothing of the user's to protect.
+     * and holds nothing of the user's to protect. Read-only still lets {@code COPY ... TO} write files, so
+     * file system access is then switched off ({@link DuckDb#sealed}). A folder is read as CSV and Parquet files, one view each
+     * (see {@link DuckDb#openFolder}).
      */
     private Connection openDuckDb() throws SQLException {
-        Optional<Path> file = file();
+        Optional<Path> path = databaseFile(Engine.DUCKDB, url.expand(), baseDirectory);
         Properties properties = DuckDb.offline();
-        if (file.isEmpty()) {
+        if (path.isEmpty()) {
             return DriverManager.getConnection(Engine.DUCKDB.urlPrefix(), properties);
+        }
+        if (Files.isDirectory(path.get())) {
+            return DuckDb.openFolder(path.get());
         }
         Path existing = existingFile();
         properties.setProperty(DuckDb.READ_ONLY, "true");
-        return DriverManager.getConnection(Engine.DUCKDB.urlPrefix() + existing, properties);
+        return DuckDb.sealed(DriverManager.getConnection(Engine.DUCKDB.urlPrefix() + existing, properties));
     }
 
     private Path existingFile() {
