@@ -6,8 +6,10 @@ import dev.quern.recipe.Recipe;
 import dev.quern.recipe.RecipeReader;
 import dev.quern.report.DataDictionary;
 import dev.quern.report.Provenance;
+import dev.quern.run.MatrixFormat;
 import dev.quern.run.MatrixWriter;
 import dev.quern.run.OutputFolder;
+import dev.quern.run.ParquetWriter;
 import dev.quern.run.Progress;
 import dev.quern.run.RunResult;
 import dev.quern.schema.SchemaReader;
@@ -44,16 +46,23 @@ import java.util.Optional;
 public final class Quern {
 
     public static final String MATRIX = "matrix.csv";
+    public static final String MATRIX_PARQUET = "matrix.parquet";
     public static final String DICTIONARY_CSV = "dictionary.csv";
     public static final String DICTIONARY_MD = "dictionary.md";
     public static final String PROVENANCE = "provenance.json";
 
     private final Recipe recipe;
     private final Path recipeFolder;
+    private final MatrixFormat format;
 
     private Quern(Recipe recipe, Path recipeFolder) {
+        this(recipe, recipeFolder, MatrixFormat.CSV);
+    }
+
+    private Quern(Recipe recipe, Path recipeFolder, MatrixFormat format) {
         this.recipe = recipe;
         this.recipeFolder = recipeFolder;
+        this.format = format;
     }
 
     /** Reads and parses a recipe file; relative SQLite paths in it are read from the file's folder. */
@@ -70,6 +79,11 @@ public final class Quern {
     /** The same recipe reading another source (a JDBC URL; may name {@code ${VARIABLES}}). */
     public Quern withSource(String url) {
         return new Quern(recipe.withSource(url), Path.of("").toAbsolutePath());
+    }
+
+    /** The same recipe, writing the matrix in {@code format} (CSV unless told). */
+    public Quern withFormat(MatrixFormat format) {
+        return new Quern(recipe, recipeFolder, java.util.Objects.requireNonNull(format, "format"));
     }
 
     public Recipe recipe() {
@@ -98,10 +112,15 @@ public final class Quern {
         try (Connection connection = source.open(); OutputFolder out = new OutputFolder(folder)) {
             progress.stage("checking the recipe against " + source.engine().label());
             Compilation compilation = compile(source, connection, timings);
-            progress.stage("building " + MATRIX);
+            progress.stage("building " + format.fileName());
             RunResult run;
-            try (Writer matrix = out.open(MATRIX)) {
+            Path csv = format == MatrixFormat.CSV ? null : out.scratch(MATRIX);
+            try (Writer matrix = csv == null ? out.open(MATRIX) : Files.newBufferedWriter(csv, StandardCharsets.UTF_8)) {
                 run = MatrixWriter.write(compilation.query(), connection, matrix, progress);
+            }
+            if (format == MatrixFormat.PARQUET) {
+                progress.stage("writing " + format.fileName());
+                ParquetWriter.convert(csv, compilation.plan().columns(), out.reserve(format.fileName()));
             }
             timings.put("query", run.queryTime());
             timings.put("write", run.writeTime());

@@ -1,6 +1,7 @@
 package dev.quern.cli;
 
 import dev.quern.BuildSummary;
+import dev.quern.run.MatrixFormat;
 import dev.quern.run.TerminalProgress;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
@@ -20,12 +21,16 @@ final class BuildCommand implements Callable<Integer> {
     @Option(names = {"-o", "--out"}, required = true, paramLabel = "DIR", description = "The output folder.")
     Path out;
 
+    @Option(names = "--format", defaultValue = "csv", paramLabel = "FORMAT",
+            description = "The matrix file: csv (default) or parquet.")
+    MatrixFormat format;
+
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
     @Override
     public Integer call() {
-        BuildSummary built = recipe.load().build(out, TerminalProgress.forConsole());
+        BuildSummary built = recipe.load().withFormat(format).build(out, TerminalProgress.forConsole());
         var w = spec.commandLine().getOut();
         w.printf("%d rows x %d columns (%d cutoffs) written to %s%n", built.run().rows(),
                 built.compilation().plan().columns().size(), built.compilation().plan().cutoffs().size(), out);

@@ -25,6 +25,7 @@ public final class Main implements Runnable {
     /** Runs one command line; returns its exit code. */
     public static int run(PrintWriter out, PrintWriter err, String... args) {
         CommandLine cli = new CommandLine(new Main());
+        cli.setCaseInsensitiveEnumValuesAllowed(true);
         cli.setOut(out);
         cli.setErr(err);
         cli.setExecutionExceptionHandler((e, line, parsed) -> report(e, err));

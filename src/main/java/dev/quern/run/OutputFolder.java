@@ -23,6 +23,7 @@ public final class OutputFolder implements AutoCloseable {
 
     private final Path folder;
     private final Map<String, Path> pending = new LinkedHashMap<>();
+    private final List<Path> scratch = new ArrayList<>();
     private boolean committed;
 
     public OutputFolder(Path folder) {
@@ -44,6 +45,31 @@ public final class OutputFolder implements AutoCloseable {
             Path temp = Files.createTempFile(folder, "." + name + ".", ".tmp");
             pending.put(name, temp);
             return Files.newBufferedWriter(temp, StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw QuernException.output("cannot write in " + folder + ": " + e.getMessage(), e);
+        }
+    }
+
+    /**
+     * The temporary file that becomes {@code name} on commit, for writers that need a path rather than a
+     * stream (DuckDB's COPY).
+     */
+    public Path reserve(String name) {
+        try {
+            Path temp = Files.createTempFile(folder, "." + name + ".", ".tmp");
+            pending.put(name, temp);
+            return temp;
+        } catch (IOException e) {
+            throw QuernException.output("cannot write in " + folder + ": " + e.getMessage(), e);
+        }
+    }
+
+    /** A working file beside the outputs that is never committed, and is removed by commit or close. */
+    public Path scratch(String name) {
+        try {
+            Path temp = Files.createTempFile(folder, "." + name + ".", ".tmp");
+            scratch.add(temp);
+            return temp;
         } catch (IOException e) {
             throw QuernException.output("cannot write in " + folder + ": " + e.getMessage(), e);
         }
@@ -77,12 +103,14 @@ public final class OutputFolder implements AutoCloseable {
         }
         pending.clear();
         committed = true;
+        removeScratch();
         return done;
     }
 
     /** Removes whatever was not committed. */
     @Override
     public void close() {
+        removeScratch();
         if (committed) {
             return;
         }
@@ -94,5 +122,16 @@ public final class OutputFolder implements AutoCloseable {
             }
         }
         pending.clear();
+    }
+
+    private void removeScratch() {
+        for (Path temp : scratch) {
+            try {
+                Files.deleteIfExists(temp);
+            } catch (IOException e) {
+                throw new UncheckedIOException("cannot remove the temporary file " + temp, e);
+            }
+        }
+        scratch.clear();
     }
 }

@@ -30,7 +30,7 @@ import org.junit.jupiter.params.provider.EnumSource;
 @ExtendWith(Databases.Extension.class)
 class NistEnginesTest {
 
-    private static final String RECIPE = """
+    static final String RECIPE = """
             recipe: nist
             source: jdbc:sqlite:nist.sqlite
             entity: { table: sensors, key: sensor_id, since: installed_on }
@@ -99,7 +99,7 @@ class NistEnginesTest {
         return m;
     }
 
-    private static synchronized Path database(Databases db) throws IOException {
+    static synchronized Path database(Databases db) throws IOException {
         if (database != null) {
             return database;
         }
