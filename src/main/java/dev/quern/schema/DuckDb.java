@@ -36,6 +36,16 @@ public final class DuckDb {
     }
 
     /**
+     * For connections Quern reads a source through: offline, and streaming results, without which the
+     * driver materialises a whole result before handing over its first row.
+     */
+    static Properties reading() {
+        Properties p = offline();
+        p.setProperty("jdbc_stream_results", "true");
+        return p;
+    }
+
+    /**
      * An in-memory DuckDB in which each file of {@code folder} is a table named after it: {@code rides.csv}
      * (also {@code .tsv}, {@code .csv.gz}) through read_csv, with types detected from every row;
      * {@code rides.parquet}, or a subfolder {@code rides/} of Parquet files, through read_parquet. The files
@@ -49,7 +59,7 @@ public final class DuckDb {
             throw QuernException.data("the folder " + folder + " holds no .csv, .tsv, .csv.gz or .parquet file"
                     + " (nor a subfolder of .parquet files) to read as a table");
         }
-        Connection c = DriverManager.getConnection(Engine.DUCKDB.urlPrefix(), offline());
+        Connection c = DriverManager.getConnection(Engine.DUCKDB.urlPrefix(), reading());
         try (Statement s = c.createStatement()) {
             for (Map.Entry<String, String> view : views.entrySet()) {
                 s.execute("create table " + Engine.DUCKDB.sql().render(DSL.name(view.getKey())) + " as select * from "

@@ -151,7 +151,7 @@ public final class Source {
      */
     private Connection openDuckDb() throws SQLException {
         Optional<Path> path = databaseFile(Engine.DUCKDB, url.expand(), baseDirectory);
-        Properties properties = DuckDb.offline();
+        Properties properties = DuckDb.reading();
         if (path.isEmpty()) {
             return DriverManager.getConnection(Engine.DUCKDB.urlPrefix(), properties);
         }

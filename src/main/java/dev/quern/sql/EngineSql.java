@@ -2,6 +2,7 @@ package dev.quern.sql;
 
 import dev.quern.schema.Engine;
 import dev.quern.schema.TimeStorage;
+import dev.quern.schema.ValueType;
 import org.jooq.DSLContext;
 import org.jooq.Field;
 import org.jooq.SortField;
@@ -60,6 +61,11 @@ abstract class EngineSql {
      */
     SortField<Object> newestFirst(Field<Object> field) {
         return field.desc();
+    }
+
+    /** An output column as the final select hands it to the driver. */
+    Field<Object> output(Field<Object> value, ValueType type) {
+        return value;
     }
 
     /** The date part of a time, as a date. */

@@ -2,6 +2,7 @@ package dev.quern.sql;
 
 import dev.quern.schema.Engine;
 import dev.quern.schema.TimeStorage;
+import dev.quern.schema.ValueType;
 import org.jooq.Field;
 import org.jooq.impl.DSL;
 
@@ -32,6 +33,19 @@ final class MariaDbSql extends EngineSql {
     @Override
     Field<Object> mean(Field<Object> value) {
         return DSL.avg(DSL.field("cast({0} as double)", java.math.BigDecimal.class, value)).coerce(Object.class);
+    }
+
+    /**
+     * MariaDB's driver (3.5) decodes a DATETIME through the JVM's time zone, even for getString: a time in a
+     * daylight-saving gap there (02:30 on a spring-forward night in Europe/Amsterdam) comes back an hour
+     * later. Times leave the server as text, which the driver hands over untouched.
+     */
+    @Override
+    Field<Object> output(Field<Object> value, ValueType type) {
+        if (type == ValueType.TIMESTAMP) {
+            return DSL.field("date_format({0}, '%Y-%m-%d %H:%i:%s')", Object.class, value);
+        }
+        return value;
     }
 
     /** stddev_samp accumulates with Welford's method in both. */
