@@ -68,9 +68,17 @@ class SecretsTest {
     };
     private final List<Logger> verbose = new ArrayList<>();
     private final List<Level> levels = new ArrayList<>();
+    /** The console handlers, silenced while the drivers log everything. */
+    private final List<Handler> quiet = new ArrayList<>();
+    private final List<Level> quietLevels = new ArrayList<>();
 
     @BeforeEach
     void logEverything() {
+        for (Handler h : Logger.getLogger("").getHandlers()) {
+            quiet.add(h);
+            quietLevels.add(h.getLevel());
+            h.setLevel(Level.OFF);
+        }
         Logger.getLogger("").addHandler(capture);
         for (String name : List.of("org.postgresql", "org.mariadb.jdbc", "org.jooq", "dev.quern")) {
             Logger l = Logger.getLogger(name);
@@ -86,6 +94,9 @@ class SecretsTest {
         Logger.getLogger("").removeHandler(capture);
         for (int i = 0; i < verbose.size(); i++) {
             verbose.get(i).setLevel(levels.get(i));
+        }
+        for (int i = 0; i < quiet.size(); i++) {
+            quiet.get(i).setLevel(quietLevels.get(i));
         }
     }
 
