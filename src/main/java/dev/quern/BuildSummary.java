@@ -1,15 +1,32 @@
 package dev.quern;
 
+import dev.quern.plan.OutputColumn;
+import dev.quern.report.Comparison;
+import dev.quern.run.RuleOutcome;
 import dev.quern.run.RunResult;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Objects;
+import java.util.Optional;
 
-/** What a build wrote and how it went. */
-public record BuildSummary(Compilation compilation, RunResult run, List<Path> files) {
+/**
+ * What a build wrote and how it went. {@code columns} are the matrix's columns as written: the plan's, or
+ * after the encode stage the encoded ones; {@code drift} is the comparison with an earlier build when one
+ * was named.
+ */
+public record BuildSummary(Compilation compilation, RunResult run, List<RuleOutcome> rules, List<Path> files,
+                           List<OutputColumn> columns, Optional<Comparison> drift) {
     public BuildSummary {
         Objects.requireNonNull(compilation, "compilation");
         Objects.requireNonNull(run, "run");
+        rules = List.copyOf(rules);
         files = List.copyOf(files);
+        columns = List.copyOf(columns);
+        Objects.requireNonNull(drift, "drift");
+    }
+
+    /** A build without an encode stage and without a comparison: the matrix has the plan's columns. */
+    public BuildSummary(Compilation compilation, RunResult run, List<RuleOutcome> rules, List<Path> files) {
+        this(compilation, run, rules, files, compilation.plan().columns(), Optional.empty());
     }
 }

@@ -1,12 +1,25 @@
 package dev.quern;
 
+import dev.quern.encode.EncodePlan;
+import dev.quern.encode.Encoder;
+import dev.quern.encode.Fitted;
 import dev.quern.plan.Plan;
 import dev.quern.plan.Planner;
 import dev.quern.recipe.Recipe;
 import dev.quern.recipe.RecipeReader;
+import dev.quern.report.BuildFiles;
+import dev.quern.report.Compare;
+import dev.quern.report.Comparison;
 import dev.quern.report.DataDictionary;
+import dev.quern.report.HtmlReport;
+import dev.quern.report.Lineage;
 import dev.quern.report.Provenance;
+import dev.quern.report.RulesReport;
+import dev.quern.report.Thresholds;
 import dev.quern.run.MatrixFormat;
+import dev.quern.run.RuleOutcome;
+import dev.quern.run.RuleRunner;
+import dev.quern.sql.RuleQueries;
 import dev.quern.run.MatrixWriter;
 import dev.quern.run.OutputFolder;
 import dev.quern.run.ParquetWriter;
@@ -29,6 +42,7 @@ import java.sql.Connection;
 import java.sql.SQLException;
 import java.time.Duration;
 import java.time.Instant;
+import java.time.LocalDate;
 import java.util.HexFormat;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -50,18 +64,25 @@ public final class Quern {
     public static final String DICTIONARY_CSV = "dictionary.csv";
     public static final String DICTIONARY_MD = "dictionary.md";
     public static final String PROVENANCE = "provenance.json";
+    public static final String RULES = "rules.md";
+    public static final String REPORT = "report.html";
 
     private final Recipe recipe;
     private final Path recipeFolder;
+    private final Optional<List<LocalDate>> cutoffs;
+    private final Optional<Path> fitted;
     private final MatrixFormat format;
 
     private Quern(Recipe recipe, Path recipeFolder) {
-        this(recipe, recipeFolder, MatrixFormat.CSV);
+        this(recipe, recipeFolder, Optional.empty(), Optional.empty(), MatrixFormat.CSV);
     }
 
-    private Quern(Recipe recipe, Path recipeFolder, MatrixFormat format) {
+    private Quern(Recipe recipe, Path recipeFolder, Optional<List<LocalDate>> cutoffs, Optional<Path> fitted,
+                  MatrixFormat format) {
         this.recipe = recipe;
         this.recipeFolder = recipeFolder;
+        this.cutoffs = cutoffs;
+        this.fitted = fitted;
         this.format = format;
     }
 
@@ -78,12 +99,22 @@ public final class Quern {
 
     /** The same recipe reading another source (a JDBC URL; may name {@code ${VARIABLES}}). */
     public Quern withSource(String url) {
-        return new Quern(recipe.withSource(url), Path.of("").toAbsolutePath());
+        return new Quern(recipe.withSource(url), Path.of("").toAbsolutePath(), cutoffs, fitted, format);
+    }
+
+    /** The same recipe built at other cutoffs (a scoring run): same columns, other rows. */
+    public Quern withCutoffs(List<LocalDate> dates) {
+        return new Quern(recipe, recipeFolder, Optional.of(List.copyOf(dates)), fitted, format);
+    }
+
+    /** Encodings taken from an earlier build's fitted file instead of fitted again. */
+    public Quern withFitted(Path file) {
+        return new Quern(recipe, recipeFolder, cutoffs, Optional.of(file), format);
     }
 
     /** The same recipe, writing the matrix in {@code format} (CSV unless told). */
     public Quern withFormat(MatrixFormat format) {
-        return new Quern(recipe, recipeFolder, java.util.Objects.requireNonNull(format, "format"));
+        return new Quern(recipe, recipeFolder, cutoffs, fitted, java.util.Objects.requireNonNull(format, "format"));
     }
 
     public Recipe recipe() {
@@ -106,33 +137,73 @@ public final class Quern {
 
     /** Builds the modelling table and its reports into {@code folder}; all or nothing. */
     public BuildSummary build(Path folder, Progress progress) {
+        return build(folder, progress, Optional.empty());
+    }
+
+    /**
+     * Builds as {@link #build(Path, Progress)} does, and when {@code compareTo} names an earlier build's
+     * folder (it may be {@code folder} itself), compares the new matrix with it; the drift goes into
+     * report.html and the summary.
+     */
+    public BuildSummary build(Path folder, Progress progress, Optional<Path> compareTo) {
+        Optional<BuildFiles> earlier = compareTo.map(BuildFiles::read);
         Source source = source();
         Map<String, Duration> timings = new LinkedHashMap<>();
         Instant builtAt = Instant.now();
         try (Connection connection = source.open(); OutputFolder out = new OutputFolder(folder)) {
             progress.stage("checking the recipe against " + source.engine().label());
             Compilation compilation = compile(source, connection, timings);
-            progress.stage("building " + format.fileName());
+            EncodePlan encoding = Encoder.plan(recipe, compilation.plan());
+            String recipeSha256 = sha256(recipe.text());
+            Optional<Fitted> frozen = fitted.map(f -> Encoder.readFitted(f, encoding, recipeSha256));
+            progress.stage("checking the data against the recipe's rules");
+            long rulesStarted = System.nanoTime();
+            List<RuleOutcome> rules = RuleRunner.run(RuleQueries.of(compilation.plan()), connection);
+            timings.put("rules", Duration.ofNanos(System.nanoTime() - rulesStarted));
+            progress.stage("building " + MATRIX);
             RunResult run;
-            Path csv = format == MatrixFormat.CSV ? null : out.scratch(MATRIX);
-            try (Writer matrix = csv == null ? out.open(MATRIX) : Files.newBufferedWriter(csv, StandardCharsets.UTF_8)) {
-                run = MatrixWriter.write(compilation.query(), connection, matrix, progress);
-            }
-            if (format == MatrixFormat.PARQUET) {
-                progress.stage("writing " + format.fileName());
-                ParquetWriter.convert(csv, compilation.plan().columns(), out.reserve(format.fileName()));
+            Plan table = compilation.plan();
+            if (encoding.isEmpty() && frozen.isEmpty()) {
+                try (Writer matrix = out.open(MATRIX)) {
+                    run = MatrixWriter.write(compilation.query(), connection, matrix, progress);
+                }
+            } else {
+                // The encode stage: the raw matrix goes to a scratch file, then is fitted and encoded into MATRIX.
+                Encoder.Encoded encoded = Encoder.build(encoding, frozen, recipeSha256, out,
+                        raw -> MatrixWriter.write(compilation.query(), connection, raw, progress), progress);
+                run = encoded.run();
+                table = encoded.plan();
+                timings.put("encode", encoded.time());
             }
             timings.put("query", run.queryTime());
             timings.put("write", run.writeTime());
             progress.stage("writing reports");
-            DataDictionary dictionary = new DataDictionary(compilation.plan(), run);
-            out.write(DICTIONARY_CSV, dictionary.csv());
+            Lineage lineage = Lineage.of(table);
+            DataDictionary dictionary = new DataDictionary(table, run, lineage);
+            String dictionaryCsv = dictionary.csv();
+            out.write(DICTIONARY_CSV, dictionaryCsv);
             out.write(DICTIONARY_MD, dictionary.markdown());
-            out.write(PROVENANCE, Provenance.render(compilation.plan(), compilation.schema(), run,
-                    new Provenance.Facts(recipe.file(), sha256(recipe.text()), Version.current(), source.display(),
-                            source.file().map(Quern::sha256), builtAt, timings)));
+            out.write(RULES, RulesReport.markdown(recipe.name().text(), rules, compilation.schema(), eventTimes()));
+            String provenance = Provenance.render(table, compilation.schema(), run, rules,
+                    new Provenance.Facts(recipe.file(), recipeSha256, Version.current(), source.display(),
+                            source.file().map(Quern::sha256), builtAt, timings));
+            out.write(PROVENANCE, provenance);
+            Optional<Comparison> drift = Optional.empty();
+            if (earlier.isPresent()) {
+                progress.stage("comparing with " + earlier.get().name());
+                drift = Optional.of(Compare.of(earlier.get(),
+                        BuildFiles.of(folder.toString(), out.pending(MATRIX), dictionaryCsv, provenance)));
+            }
+            out.write(REPORT, HtmlReport.render(table, run, lineage,
+                    new HtmlReport.Facts(recipe.file(), recipeSha256, Version.current(), source.display(), builtAt),
+                    drift, Thresholds.DEFAULT));
+            if (format == MatrixFormat.PARQUET) {
+                progress.stage("writing " + format.fileName());
+                ParquetWriter.convert(out.pending(MATRIX), table.columns(), out.reserve(format.fileName()));
+                out.discard(MATRIX);
+            }
             List<Path> files = out.commit();
-            return new BuildSummary(compilation, run, files);
+            return new BuildSummary(compilation, run, rules, files, table.columns(), drift);
         } catch (IOException e) {
             throw QuernException.output("writing to " + folder + " failed: " + e.getMessage(), e);
         } catch (SQLException e) {
@@ -146,12 +217,21 @@ public final class Quern {
         long t0 = System.nanoTime();
         SourceSchema schema = new SchemaReader(connection, source.engine()).read(recipe);
         long t1 = System.nanoTime();
-        Plan plan = Planner.plan(recipe, schema);
+        Plan planned = Planner.plan(recipe, schema);
+        Plan plan = cutoffs.map(planned::withCutoffs).orElse(planned);
+        Encoder.plan(recipe, plan);
         CompiledQuery query = SqlCompiler.compile(plan);
         long t2 = System.nanoTime();
         timings.put("schema", Duration.ofNanos(t1 - t0));
         timings.put("compile", Duration.ofNanos(t2 - t1));
         return new Compilation(recipe, source, schema, plan, query);
+    }
+
+    /** The {@code table.column} of every event time the recipe declares. */
+    private java.util.Set<String> eventTimes() {
+        java.util.Set<String> out = new java.util.LinkedHashSet<>();
+        recipe.tables().values().forEach(t -> t.time().ifPresent(c -> out.add(t.name().text() + "." + c.text())));
+        return out;
     }
 
     static String sha256(String text) {

@@ -12,7 +12,7 @@ final class RecipeOptions {
     Path recipe;
 
     @Option(names = "--source", paramLabel = "URL",
-            description = "Read this JDBC URL instead of the recipe's source; may name ${VARIABLES}.")
+            description = "Read this JDBC URL instead of the recipe's source; may name $${VARIABLES}.")
     String source;
 
     Quern load() {

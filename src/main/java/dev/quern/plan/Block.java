@@ -4,15 +4,18 @@ import dev.quern.recipe.Span;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Objects;
+import java.util.Optional;
+import dev.quern.expr.CheckedExpression;
 
 /**
  * All measures over all windows of one path: a single scan of the path's rows in the longest window
- * serves every column of the block.
+ * serves every column of the block. Only rows that meet {@code filter} count.
  */
-public record Block(String name, EventPath path, List<Aggregate> aggregates) {
+public record Block(String name, EventPath path, Optional<CheckedExpression> filter, List<Aggregate> aggregates) {
     public Block {
         Objects.requireNonNull(name, "name");
         Objects.requireNonNull(path, "path");
+        Objects.requireNonNull(filter, "filter");
         aggregates = List.copyOf(aggregates);
         if (aggregates.isEmpty()) {
             throw new IllegalArgumentException("a block needs at least one aggregate");

@@ -3,13 +3,16 @@ package dev.quern.plan;
 import dev.quern.schema.ValueType;
 import java.util.List;
 import java.util.Objects;
+import dev.quern.expr.CheckedExpression;
 import java.util.Optional;
 
 /**
  * Which (entity, cutoff) pairs become rows: every entity of {@code table} whose {@code since} is on or
- * before the cutoff day, and which has no row in any exit table at or before the end of that day.
+ * before the cutoff day, which has no row in any exit table at or before the end of that day, and whose row
+ * meets {@code filter} at that cutoff.
  */
-public record Cohort(String table, String alias, ColumnRef key, Optional<TimeRef> since, List<Exit> exits) {
+public record Cohort(String table, String alias, ColumnRef key, Optional<TimeRef> since, List<Exit> exits,
+                     Optional<CheckedExpression> filter) {
 
     /** A table whose first row for an entity takes it out of the cohort (a cancellation). */
     public record Exit(String table, String alias, ColumnRef entityLink, TimeRef time) {
@@ -27,6 +30,7 @@ public record Cohort(String table, String alias, ColumnRef key, Optional<TimeRef
         Objects.requireNonNull(key, "key");
         Objects.requireNonNull(since, "since");
         exits = List.copyOf(exits);
+        Objects.requireNonNull(filter, "filter");
     }
 
     public ValueType keyType() {

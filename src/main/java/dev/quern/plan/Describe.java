@@ -1,6 +1,8 @@
 package dev.quern.plan;
 
 import dev.quern.Position;
+import dev.quern.expr.Binding;
+import dev.quern.expr.CheckedExpression;
 import dev.quern.recipe.FeatureSpec;
 import dev.quern.recipe.MeasureKind;
 import dev.quern.recipe.Recipe;
@@ -16,7 +18,7 @@ final class Describe {
     private Describe() {
     }
 
-    static OutputColumn aggregate(Aggregate a, EventPath path, Position at) {
+    static OutputColumn aggregate(Aggregate a, EventPath path, Optional<String> filter, Position at) {
         String rows = Words.path(path) + " rows";
         String what = switch (a.kind()) {
             case COUNT -> "Number of " + rows;
@@ -31,7 +33,7 @@ final class Describe {
         sources.add(path.time().column().qualified());
         a.input().ifPresent(c -> sources.add(c.qualified()));
         return new OutputColumn(a.column(), Role.FEATURE, a.type(), meaning, sources,
-                Optional.of(a.window().label()), Optional.empty(), whenEmpty(a.kind()), at);
+                Optional.of(a.window().label()), filter, whenEmpty(a.kind()), at);
     }
 
     static OutputColumn lookup(String column, Recipe recipe, FeatureSpec.Lookup spec, ColumnInfo source) {
@@ -50,11 +52,19 @@ final class Describe {
             meaning = source.name() + " of the latest " + table + " row at or before the end of the cutoff day.";
             whenEmpty = "empty when there is no such row";
         }
-        return new OutputColumn(column, Role.FEATURE, source.type(), meaning, List.of(table + "." + source.name()),
+        return new OutputColumn(column, Role.FEATURE, source.type(), capitalised(meaning),
+                List.of(table + "." + source.name()),
                 Optional.empty(), Optional.empty(), whenEmpty, spec.position());
     }
 
-    static OutputColumn label(LabelPlan label, Position at) {
+    static OutputColumn derived(String column, CheckedExpression expression, Position at) {
+        List<String> uses = expression.columns().stream().map(Binding::name).distinct().toList();
+        return new OutputColumn(column, Role.FEATURE, expression.type(), "Computed from other columns of the row as "
+                + expression.text() + ".", uses, Optional.empty(), Optional.empty(),
+                "empty when an input is empty or the formula is undefined (such as a division by zero)", at);
+    }
+
+    static OutputColumn label(LabelPlan label, Optional<String> filter, Position at) {
         String rows = Words.path(label.path()) + " rows";
         String horizon = "in the " + Words.span(label.horizon()) + " after the end of the cutoff day"
                 + (label.gap().amount() == 0 ? "" : " plus a gap of " + Words.span(label.gap()));
@@ -69,7 +79,7 @@ final class Describe {
         String whenEmpty = "empty when the horizon is not yet wholly observed (ends after "
                 + label.observedThrough().map(Object::toString).orElse("the data") + ")";
         return new OutputColumn(label.column(), Role.LABEL, label.type(), what, sources,
-                Optional.of(label.horizon().label()), Optional.empty(), whenEmpty, at);
+                Optional.of(label.horizon().label()), filter, whenEmpty, at);
     }
 
     private static String whenEmpty(MeasureKind kind) {

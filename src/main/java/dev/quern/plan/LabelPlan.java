@@ -5,6 +5,7 @@ import dev.quern.recipe.Span;
 import dev.quern.schema.ValueType;
 import java.time.LocalDate;
 import java.util.Objects;
+import dev.quern.expr.CheckedExpression;
 import java.util.Optional;
 
 /**
@@ -13,7 +14,8 @@ import java.util.Optional;
  * trains on a half-observed outcome.
  */
 public record LabelPlan(String column, EventPath path, Span gap, Span horizon, LabelSpec.Kind kind,
-                        Optional<ColumnRef> input, ValueType type, Optional<LocalDate> observedThrough) {
+                        Optional<ColumnRef> input, Optional<CheckedExpression> filter, ValueType type,
+                        Optional<LocalDate> observedThrough) {
     public LabelPlan {
         Objects.requireNonNull(column, "column");
         Objects.requireNonNull(path, "path");
@@ -21,6 +23,7 @@ public record LabelPlan(String column, EventPath path, Span gap, Span horizon, L
         Objects.requireNonNull(horizon, "horizon");
         Objects.requireNonNull(kind, "kind");
         Objects.requireNonNull(input, "input");
+        Objects.requireNonNull(filter, "filter");
         Objects.requireNonNull(type, "type");
         Objects.requireNonNull(observedThrough, "observedThrough");
     }

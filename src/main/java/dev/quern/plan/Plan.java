@@ -10,13 +10,13 @@ import java.util.Objects;
 import java.util.Optional;
 
 /**
- * The logical plan of a build: the cohort, one block per scanned path, the lookups and the label, and
- * the output columns in their final order (key, cutoff, features in recipe order, label last). It holds
- * no SQL: the sql stage renders it for an engine.
+ * The logical plan of a build: the data-quality rules, the cohort, one block per scanned path, the lookups,
+ * the derived columns and the label, and the output columns in their final order (key, cutoff, features in
+ * recipe order, label last). It holds no SQL: the sql stage renders it for an engine.
  */
 public record Plan(String recipeName, Engine engine, Optional<ZoneId> timeZone, List<LocalDate> cutoffs,
-                   Cohort cohort, List<Block> blocks, List<Lookup> lookups, Optional<LabelPlan> label,
-                   List<OutputColumn> columns) {
+                   Cohort cohort, List<Block> blocks, List<Lookup> lookups, List<DerivedColumn> derived,
+                   Optional<LabelPlan> label, List<RulePlan> rules, List<OutputColumn> columns) {
 
     public Plan {
         Objects.requireNonNull(recipeName, "recipeName");
@@ -26,6 +26,8 @@ public record Plan(String recipeName, Engine engine, Optional<ZoneId> timeZone, 
         Objects.requireNonNull(cohort, "cohort");
         blocks = List.copyOf(blocks);
         lookups = List.copyOf(lookups);
+        derived = List.copyOf(derived);
+        rules = List.copyOf(rules);
         Objects.requireNonNull(label, "label");
         columns = List.copyOf(columns);
     }
@@ -46,6 +48,26 @@ public record Plan(String recipeName, Engine engine, Optional<ZoneId> timeZone, 
             out.put(l.end().column(), l.end());
         });
         return List.copyOf(out.values());
+    }
+
+    /** The rules that take rows out of {@code table} before anything reads it. */
+    public List<RulePlan> exclusions(String table) {
+        return rules.stream().filter(r -> r.table().equals(table)
+                && r.failing() == dev.quern.recipe.RuleSpec.Failing.EXCLUDE).toList();
+    }
+
+    /**
+     * The same plan at other cutoffs: a scoring run's {@code --cutoffs}. The columns do not depend on the
+     * cutoffs, so they stay exactly the same.
+     */
+    public Plan withCutoffs(List<LocalDate> dates) {
+        return new Plan(recipeName, engine, timeZone, List.copyOf(new java.util.TreeSet<>(dates)), cohort, blocks,
+                lookups, derived, label, rules, columns);
+    }
+
+    /** The same plan describing other output columns: the matrix after the encode stage. */
+    public Plan withColumns(List<OutputColumn> outputs) {
+        return new Plan(recipeName, engine, timeZone, cutoffs, cohort, blocks, lookups, derived, label, rules, outputs);
     }
 
     public List<OutputColumn> features() {

@@ -4,6 +4,9 @@ import dev.quern.Diagnostics;
 import dev.quern.Failure;
 import dev.quern.Position;
 import dev.quern.Suggestions;
+import dev.quern.expr.CheckedExpression;
+import dev.quern.expr.Expect;
+import dev.quern.expr.Expressions;
 import dev.quern.recipe.FeatureSpec;
 import dev.quern.recipe.LabelSpec;
 import dev.quern.recipe.MeasureKind;
@@ -33,12 +36,15 @@ public final class Planner {
     private final PathResolver paths;
     private final Protected protectedColumns;
     private final Map<String, Position> names = new LinkedHashMap<>();
+    private final Scopes scopes;
+    private List<RulePlan> rules = List.of();
 
     private Planner(Recipe recipe, SourceSchema schema) {
         this.recipe = recipe;
         this.schema = schema;
         this.paths = new PathResolver(recipe, schema, problems);
         this.protectedColumns = Protected.of(recipe);
+        this.scopes = new Scopes(schema);
     }
 
     public static Plan plan(Recipe recipe, SourceSchema schema) {
@@ -46,6 +52,7 @@ public final class Planner {
     }
 
     private Plan plan() {
+        rules = new RulePlanner(recipe, schema, problems).plan();
         Cohort cohort = cohort();
         List<OutputColumn> columns = new ArrayList<>();
         columns.add(keyColumn(cohort));
@@ -53,19 +60,22 @@ public final class Planner {
         List<Block> blocks = new ArrayList<>();
         List<Lookup> lookups = new ArrayList<>();
         List<FeatureSpec.Lookup> lookupSpecs = new ArrayList<>();
+        List<DerivedColumn> derived = new ArrayList<>();
         for (FeatureSpec feature : recipe.features()) {
             if (feature instanceof FeatureSpec.Aggregates a) {
                 block(a, blocks.size() + 1, columns).ifPresent(blocks::add);
             } else if (feature instanceof FeatureSpec.Lookup l) {
                 lookupSpecs.add(l);
                 lookupColumn(l, columns);
+            } else if (feature instanceof FeatureSpec.Derived d) {
+                derived(d, columns).ifPresent(derived::add);
             }
         }
         lookups.addAll(new LookupPlanner(recipe, schema, paths, problems, protectedColumns).plan(lookupSpecs));
         Optional<LabelPlan> label = recipe.label().flatMap(l -> label(l, columns));
         problems.throwIfAny(Failure.RECIPE);
         return new Plan(recipe.name().text(), schema.engine(), recipe.timeZone(), recipe.cutoffs().dates(), cohort,
-                blocks, lookups, label, columns);
+                blocks, lookups, derived, label, rules, columns);
     }
 
     private Cohort cohort() {
@@ -88,7 +98,9 @@ public final class Planner {
             exits.add(new Cohort.Exit(exit.text(), alias, link.get(),
                     new TimeRef(paths.column(alias, exit.text(), time), schema.time(exit.text(), time).storage())));
         }
-        return new Cohort(table, "m", key, since, exits);
+        Optional<CheckedExpression> filter = recipe.entity().where().flatMap(w -> Expressions.compile(w.text(),
+                w.start(), scopes.table(table, "m", true), Expect.CONDITION, problems));
+        return new Cohort(table, "m", key, since, exits, filter);
     }
 
     private OutputColumn keyColumn(Cohort cohort) {
@@ -113,6 +125,9 @@ public final class Planner {
             return Optional.empty();
         }
         String prefix = spec.prefix().map(Name::text).orElse(spec.from().defaultPrefix());
+        Optional<CheckedExpression> filter = spec.where().flatMap(w -> Expressions.compile(w.text(), w.start(),
+                scopes.path(path.get()), Expect.CONDITION, problems));
+        Optional<String> filterNote = filterNote(path.get(), filter);
         List<Aggregate> aggregates = new ArrayList<>();
         for (MeasureSpec measure : spec.measures()) {
             Optional<ColumnRef> input = measure.column().flatMap(c -> measureInput(path.get(), measure, c));
@@ -127,10 +142,11 @@ public final class Planner {
                 Aggregate aggregate = new Aggregate(column, measure.kind(), input, window,
                         resultType(measure.kind(), input));
                 aggregates.add(aggregate);
-                columns.add(Describe.aggregate(aggregate, path.get(), at));
+                columns.add(Describe.aggregate(aggregate, path.get(), filterNote, at));
             }
         }
-        return aggregates.isEmpty() ? Optional.empty() : Optional.of(new Block(name, path.get(), aggregates));
+        return aggregates.isEmpty() ? Optional.empty()
+                : Optional.of(new Block(name, path.get(), filter, aggregates));
     }
 
     private Optional<ColumnRef> measureInput(EventPath path, MeasureSpec measure, Name column) {
@@ -206,13 +222,44 @@ public final class Planner {
             }
         }
         ValueType type = spec.kind() == LabelSpec.Kind.SUM ? input.get().type() : ValueType.INTEGER;
+        Optional<CheckedExpression> filter = spec.where().flatMap(w -> Expressions.compile(w.text(), w.start(),
+                scopes.path(path.get()), Expect.CONDITION, problems));
         List<String> eventTimes = recipe.tables().values().stream().filter(t -> t.time().isPresent())
                 .map(t -> t.name().text() + "." + t.time().get().text()).toList();
         LabelPlan label = new LabelPlan(spec.name().text(), path.get(), spec.gap(), spec.horizon(), spec.kind(),
-                input, type, schema.latestOf(eventTimes));
+                input, filter, type, schema.latestOf(eventTimes));
         name(label.column(), spec.name().position());
-        columns.add(Describe.label(label, spec.position()));
+        columns.add(Describe.label(label, filterNote(path.get(), filter), spec.position()));
         return Optional.of(label);
+    }
+
+    /**
+     * A column computed from the output columns defined before it. The label is not among its names: a
+     * feature computed from the label would be the label itself.
+     */
+    private Optional<DerivedColumn> derived(FeatureSpec.Derived spec, List<OutputColumn> columns) {
+        name(spec.name().text(), spec.name().position());
+        Optional<CheckedExpression> expression = Expressions.compile(spec.expression().text(),
+                spec.expression().start(), Scopes.outputs(columns), Expect.VALUE, problems);
+        expression.ifPresent(e -> columns.add(Describe.derived(spec.name().text(), e, spec.position())));
+        return expression.map(e -> new DerivedColumn(spec.name().text(), e));
+    }
+
+    /** What a column's rows were filtered by: the block's own filter and the rules of the path's tables. */
+    private Optional<String> filterNote(EventPath path, Optional<CheckedExpression> filter) {
+        List<String> notes = new ArrayList<>();
+        filter.ifPresent(f -> notes.add(f.text()));
+        List<String> tables = new ArrayList<>();
+        tables.add(path.table());
+        path.hops().forEach(h -> tables.add(h.table()));
+        for (String table : tables) {
+            for (RulePlan rule : rules) {
+                if (rule.table().equals(table) && rule.failing() == dev.quern.recipe.RuleSpec.Failing.EXCLUDE) {
+                    notes.add("rule: " + rule.describe());
+                }
+            }
+        }
+        return notes.isEmpty() ? Optional.empty() : Optional.of(String.join("; ", notes));
     }
 
     /** Claims an output name; a second claim is a mistake reported at both places. */

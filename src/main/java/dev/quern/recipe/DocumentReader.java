@@ -31,13 +31,16 @@ import org.yaml.snakeyaml.nodes.ScalarNode;
 final class DocumentReader {
 
     static final List<String> TOP_KEYS =
-            List.of("recipe", "source", "time-zone", "entity", "cutoffs", "tables", "label", "features");
-    static final List<String> ENTITY_KEYS = List.of("table", "key", "since", "until");
+            List.of("recipe", "source", "time-zone", "entity", "cutoffs", "tables", "rules", "label", "features",
+                    "encode", "split", "audit");
+    static final List<String> ENTITY_KEYS = List.of("table", "key", "since", "until", "where");
     static final List<String> CUTOFF_KEYS = List.of("every", "from", "to", "dates");
-    static final List<String> TABLE_KEYS = List.of("key", "time", "history", "links", "identifiers");
+    static final List<String> TABLE_KEYS =
+            List.of("key", "time", "history", "links", "identifiers", "updated", "sensitive", "filled");
     static final List<String> HISTORY_KEYS = List.of("from", "to");
-    static final List<String> LABEL_KEYS = List.of("name", "from", "horizon", "gap", "value");
-    static final List<String> BLOCK_KEYS = List.of("from", "windows", "measures", "prefix");
+    static final List<String> LABEL_KEYS = List.of("name", "from", "horizon", "gap", "value", "where");
+    static final List<String> BLOCK_KEYS = List.of("from", "windows", "measures", "prefix", "where");
+    static final List<String> DERIVED_KEYS = List.of("name", "expr");
     static final List<String> MEASURE_KEYS = List.of("measure", "name");
     static final List<String> LOOKUP_KEYS = List.of("lookup", "name");
 
@@ -72,15 +75,24 @@ final class DocumentReader {
         Optional<Map<String, TableSpec>> tables =
                 m.required("tables", "the tables the recipe reads, with their keys, times and links")
                         .flatMap(this::tables);
+        Optional<List<RuleSpec>> rules = m.optional("rules").map(n -> new RuleReader(values, references).rules(n))
+                .orElse(Optional.of(List.of()));
         Optional<LabelSpec> label = m.optional("label").flatMap(this::label);
         Optional<List<FeatureSpec>> features = m.required("features", "the list of features to compute")
                 .flatMap(this::features);
+        ModellingReader modelling = new ModellingReader(values);
+        Optional<List<EncodingSpec>> encodings = m.optional("encode").map(modelling::encodings)
+                .orElse(Optional.of(List.of()));
+        Optional<Optional<SplitSpec>> split = m.optional("split").map(n -> modelling.split(n).map(Optional::of))
+                .orElse(Optional.of(Optional.empty()));
+        Optional<AuditSpec> audit = m.optional("audit").map(modelling::audit).orElse(Optional.of(AuditSpec.DEFAULT));
         references.check();
         if (!diagnostics.isEmpty()) {
             return Optional.empty();
         }
         return Optional.of(new Recipe(values.file(), text, name.orElseThrow(), source.orElseThrow(), timeZone,
-                entity.orElseThrow(), cutoffs.orElseThrow(), tables.orElseThrow(), label, features.orElseThrow()));
+                entity.orElseThrow(), cutoffs.orElseThrow(), tables.orElseThrow(), rules.orElseThrow(), label,
+                features.orElseThrow(), encodings.orElseThrow(), split.orElseThrow(), audit.orElseThrow()));
     }
 
     private Optional<Name> recipeName(Node node) {
@@ -134,12 +146,14 @@ final class DocumentReader {
                 .flatMap(n -> values.name(n, "column", forKey("key")));
         Optional<Name> since = m.optional("since").flatMap(n -> values.name(n, "column", forKey("since")));
         List<Name> until = m.optional("until").map(this::until).orElse(List.of());
+        Optional<Expression> where = m.optional("where").flatMap(n -> expression(n, "where"));
         table.ifPresent(t -> references.entity(t, key));
         until.forEach(references::until);
         if (values.errorCount() > errors) {
             return Optional.empty();
         }
-        return Optional.of(new EntitySpec(table.orElseThrow(), key.orElseThrow(), since, until, m.position()));
+        return Optional.of(new EntitySpec(table.orElseThrow(), key.orElseThrow(), since, until, where,
+                m.position()));
     }
 
     /** One table or a list of tables. */
@@ -278,8 +292,12 @@ final class DocumentReader {
                     + " has a 'time', a table of rows in force from/to has a 'history'; keep one");
         }
         List<Link> links = m.optional("links").map(n -> links(name, n)).orElse(List.of());
-        List<Name> identifiers = m.optional("identifiers").map(this::identifiers).orElse(List.of());
-        return Optional.of(new TableSpec(name, key, time, history, links, identifiers, name.position()));
+        List<Name> identifiers = m.optional("identifiers").map(n -> columns(n, "identifiers")).orElse(List.of());
+        Optional<Name> updated = m.optional("updated").flatMap(n -> values.name(n, "column", forKey("updated")));
+        List<Name> sensitive = m.optional("sensitive").map(n -> columns(n, "sensitive")).orElse(List.of());
+        List<FilledAt> filled = m.optional("filled").map(n -> filled(name, n)).orElse(List.of());
+        return Optional.of(new TableSpec(name, key, time, history, links, identifiers, updated, sensitive, filled,
+                name.position()));
     }
 
     private Optional<History> history(Name table, Node node) {
@@ -314,10 +332,29 @@ final class DocumentReader {
         return out;
     }
 
-    private List<Name> identifiers(Node node) {
+    private List<Name> columns(Node node, String key) {
         List<Name> out = new ArrayList<>();
-        values.list(node, "a list of columns", forKey("identifiers")).ifPresent(items -> items.forEach(
-                item -> values.name(item, "column", in("identifiers")).ifPresent(out::add)));
+        values.list(node, "a list of columns", forKey(key)).ifPresent(items -> items.forEach(
+                item -> values.name(item, "column", in(key)).ifPresent(out::add)));
+        return out;
+    }
+
+    /** {@code filled: { satisfaction: closed_at }}: each column with the time it is written at. */
+    private List<FilledAt> filled(Name table, Node node) {
+        Optional<MappingReader> read =
+                values.mapping(node, forKey("filled"), "filled columns of table " + table.text(), List.of());
+        List<FilledAt> out = new ArrayList<>();
+        read.ifPresent(m -> {
+            for (NodeTuple entry : m.entries()) {
+                ScalarNode key = (ScalarNode) entry.getKeyNode();
+                Optional<Name> column = Names.plain(key.getValue(), values.start(key), "column", diagnostics);
+                Optional<Name> at = values.name(entry.getValueNode(), "column",
+                        "for the time " + Names.quote(key.getValue()) + " is filled at");
+                if (column.isPresent() && at.isPresent()) {
+                    out.add(new FilledAt(column.get(), at.get()));
+                }
+            }
+        });
         return out;
     }
 
@@ -344,12 +381,13 @@ final class DocumentReader {
         Optional<MeasureParser.LabelValue> value = m.required("value", "exists, count or sum(column)")
                 .flatMap(n -> values.scalar(n, "exists, count or sum(column)", forKey("value")))
                 .flatMap(s -> MeasureParser.label(s.getValue(), values.locator(s), diagnostics));
+        Optional<Expression> where = m.optional("where").flatMap(n -> expression(n, "where"));
         from.ifPresent(references::path);
         if (values.errorCount() > errors) {
             return Optional.empty();
         }
         return Optional.of(new LabelSpec(name.get(), from.get(), horizon.get(), gap.get(), value.get().kind(),
-                value.get().column(), m.position()));
+                value.get().column(), where, m.position()));
     }
 
     private Optional<PathSpec> path(Node node, String key) {
@@ -377,7 +415,7 @@ final class DocumentReader {
 
     private Optional<FeatureSpec> feature(Node item) {
         if (!(item instanceof MappingNode mapping)) {
-            values.wrongShape(item, "a feature (a mapping with 'from' or 'lookup')", in("features"));
+            values.wrongShape(item, "a feature (a mapping with 'from', 'lookup' or 'expr')", in("features"));
             return Optional.empty();
         }
         Set<String> keys = new HashSet<>();
@@ -388,6 +426,12 @@ final class DocumentReader {
         }
         boolean block = keys.contains("from");
         boolean lookup = keys.contains("lookup");
+        boolean derived = keys.contains("expr");
+        if ((block || lookup) && derived) {
+            values.error(item, "a feature with 'expr' is a column computed from other columns; it takes no"
+                    + " 'from' or 'lookup': write two features");
+            return Optional.empty();
+        }
         if (block && lookup) {
             values.error(item, "a feature is either measures over windows ('from') or a lookup ('lookup'), not both:"
                     + " write two features");
@@ -401,8 +445,12 @@ final class DocumentReader {
         if (lookup) {
             return lookup(new MappingReader(values.file(), diagnostics, mapping, "lookup", LOOKUP_KEYS), errors);
         }
-        values.error(item, "a feature needs 'from' (measures over windows of a path) or 'lookup' (a value as of"
-                + " the cutoff)");
+        if (derived) {
+            return derived(new MappingReader(values.file(), diagnostics, mapping, "derived column", DERIVED_KEYS),
+                    errors);
+        }
+        values.error(item, "a feature needs 'from' (measures over windows of a path), 'lookup' (a value as of"
+                + " the cutoff) or 'name' with 'expr' (a column computed from other columns)");
         return Optional.empty();
     }
 
@@ -414,6 +462,7 @@ final class DocumentReader {
         Optional<List<MeasureSpec>> measures = m.required("measures", "what to compute, e.g. [count, sum(amount)]")
                 .flatMap(this::measures);
         Optional<Name> prefix = m.optional("prefix").flatMap(n -> values.name(n, "prefix", forKey("prefix")));
+        Optional<Expression> where = m.optional("where").flatMap(n -> expression(n, "where"));
         if (windows.isPresent() && windows.get().size() > 1) {
             measures.ifPresent(list -> list.forEach(measure -> measure.name()
                     .filter(name -> !name.text().contains(Names.WINDOW))
@@ -426,7 +475,7 @@ final class DocumentReader {
             return Optional.empty();
         }
         FeatureSpec.Aggregates spec =
-                new FeatureSpec.Aggregates(from.get(), windows.get(), measures.get(), prefix, m.position());
+                new FeatureSpec.Aggregates(from.get(), windows.get(), measures.get(), prefix, where, m.position());
         references.path(spec.from());
         references.block(spec);
         return Optional.of(spec);
@@ -519,6 +568,22 @@ final class DocumentReader {
                 m.position());
         references.lookup(spec);
         return Optional.of(spec);
+    }
+
+    /** A derived column; {@code errors} is the error count before its mapping was read. */
+    private Optional<FeatureSpec> derived(MappingReader m, int errors) {
+        Optional<Name> name = m.required("name", "the column name, e.g. spend_trend")
+                .flatMap(n -> values.name(n, "output", forKey("name")));
+        Optional<Expression> expression = m.optional("expr").flatMap(n -> expression(n, "expr"));
+        if (values.errorCount() > errors) {
+            return Optional.empty();
+        }
+        return Optional.of(new FeatureSpec.Derived(name.get(), expression.get(), m.position()));
+    }
+
+    /** The text of an expression, kept for the plan stage to parse against the schema. */
+    private Optional<Expression> expression(Node node, String key) {
+        return values.expression(node, forKey(key));
     }
 
     private record TableColumn(Name table, Name column) {

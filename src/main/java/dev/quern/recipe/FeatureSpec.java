@@ -15,12 +15,31 @@ public sealed interface FeatureSpec {
      * path's rows. {@code prefix} replaces the path part of generated column names.
      */
     record Aggregates(PathSpec from, List<Span> windows, List<MeasureSpec> measures, Optional<Name> prefix,
-                      Position position) implements FeatureSpec {
+                      Optional<Expression> where, Position position) implements FeatureSpec {
         public Aggregates {
             Objects.requireNonNull(from, "from");
             windows = List.copyOf(windows);
             measures = List.copyOf(measures);
             Objects.requireNonNull(prefix, "prefix");
+            Objects.requireNonNull(where, "where");
+            Objects.requireNonNull(position, "position");
+        }
+
+        /** A block that reads every row of its path. */
+        public Aggregates(PathSpec from, List<Span> windows, List<MeasureSpec> measures, Optional<Name> prefix,
+                          Position position) {
+            this(from, windows, measures, prefix, Optional.empty(), position);
+        }
+    }
+
+    /**
+     * A column computed from other output columns of the same row (ratios, differences, trends), after
+     * every block, lookup and label value is known.
+     */
+    record Derived(Name name, Expression expression, Position position) implements FeatureSpec {
+        public Derived {
+            Objects.requireNonNull(name, "name");
+            Objects.requireNonNull(expression, "expression");
             Objects.requireNonNull(position, "position");
         }
     }

@@ -6,10 +6,10 @@ import java.util.Optional;
 
 /**
  * The value to predict, computed from the rows of {@code from} in the horizon
- * {@code (cutoff + gap, cutoff + gap + horizon]}.
+ * {@code (cutoff + gap, cutoff + gap + horizon]} that meet {@code where}.
  */
 public record LabelSpec(Name name, PathSpec from, Span horizon, Span gap, Kind kind, Optional<Name> column,
-                        Position position) {
+                        Optional<Expression> where, Position position) {
 
     /** What the label says about the rows in the horizon. */
     public enum Kind {
@@ -38,9 +38,16 @@ public record LabelSpec(Name name, PathSpec from, Span horizon, Span gap, Kind k
         Objects.requireNonNull(gap, "gap");
         Objects.requireNonNull(kind, "kind");
         Objects.requireNonNull(column, "column");
+        Objects.requireNonNull(where, "where");
         Objects.requireNonNull(position, "position");
         if ((kind == Kind.SUM) != column.isPresent()) {
             throw new IllegalArgumentException("a label sums a column exactly when its kind is sum");
         }
+    }
+
+    /** A label over every row of its path in the horizon. */
+    public LabelSpec(Name name, PathSpec from, Span horizon, Span gap, Kind kind, Optional<Name> column,
+                     Position position) {
+        this(name, from, horizon, gap, kind, column, Optional.empty(), position);
     }
 }

@@ -21,8 +21,12 @@ public record Recipe(
         EntitySpec entity,
         CutoffSpec cutoffs,
         Map<String, TableSpec> tables,
+        List<RuleSpec> rules,
         Optional<LabelSpec> label,
-        List<FeatureSpec> features) {
+        List<FeatureSpec> features,
+        List<EncodingSpec> encodings,
+        Optional<SplitSpec> split,
+        AuditSpec audit) {
 
     public Recipe {
         Objects.requireNonNull(file, "file");
@@ -33,8 +37,20 @@ public record Recipe(
         Objects.requireNonNull(entity, "entity");
         Objects.requireNonNull(cutoffs, "cutoffs");
         tables = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(tables));
+        rules = List.copyOf(rules);
         Objects.requireNonNull(label, "label");
         features = List.copyOf(features);
+        encodings = List.copyOf(encodings);
+        Objects.requireNonNull(split, "split");
+        Objects.requireNonNull(audit, "audit");
+    }
+
+    /** A recipe without rules. */
+    public Recipe(String file, String text, Name name, Name source, Optional<ZoneId> timeZone, EntitySpec entity,
+                  CutoffSpec cutoffs, Map<String, TableSpec> tables, Optional<LabelSpec> label,
+                  List<FeatureSpec> features) {
+        this(file, text, name, source, timeZone, entity, cutoffs, tables, List.of(), label, features, List.of(),
+                Optional.empty(), AuditSpec.DEFAULT);
     }
 
     public Optional<TableSpec> table(String name) {
@@ -43,7 +59,7 @@ public record Recipe(
 
     /** The same recipe reading another source: the command line's {@code --source}. */
     public Recipe withSource(String url) {
-        return new Recipe(file, text, name, new Name(url, Position.NONE), timeZone, entity, cutoffs, tables,
-                label, features);
+        return new Recipe(file, text, name, new Name(url, Position.NONE), timeZone, entity, cutoffs, tables, rules,
+                label, features, encodings, split, audit);
     }
 }

@@ -31,6 +31,7 @@ final class References {
     private final List<PathSpec> paths = new ArrayList<>();
     private final List<FeatureSpec.Lookup> lookups = new ArrayList<>();
     private final List<FeatureSpec.Aggregates> blocks = new ArrayList<>();
+    private final List<RuleSpec> rules = new ArrayList<>();
 
     References(Diagnostics diagnostics) {
         this.diagnostics = diagnostics;
@@ -75,6 +76,10 @@ final class References {
         blocks.add(block);
     }
 
+    void rule(RuleSpec rule) {
+        rules.add(rule);
+    }
+
     /**
      * Reports every broken reference. Without the entity table or the tables section nothing can be told
      * apart from a typo, so then there is nothing to check (their own errors are already reported).
@@ -100,6 +105,18 @@ final class References {
         for (FeatureSpec.Aggregates block : blocks) {
             checkIdentifiers(block);
         }
+        for (RuleSpec rule : rules) {
+            checkRule(rule);
+        }
+    }
+
+    private void checkRule(RuleSpec rule) {
+        if (!declared(rule.table()) || !(rule instanceof RuleSpec.Orphans)) {
+            return;
+        }
+        details(rule.table().text()).filter(spec -> spec.links().isEmpty()).ifPresent(spec ->
+                diagnostics.error(rule.position(), "table " + rule.table().text() + " declares no links, so it"
+                        + " can have no orphans: declare its links or drop the rule"));
     }
 
     private String entity() {

@@ -110,6 +110,17 @@ final class Values {
                 .flatMap(s -> SpanParser.parse(s.getValue(), start(s), diagnostics));
     }
 
+    /** An expression's text and where its first character stands; empty text is a mistake. */
+    Optional<Expression> expression(Node node, String where) {
+        return scalar(node, "an expression in quotes, e.g. \"amount > 0\"", where).flatMap(s -> {
+            if (s.getValue().isBlank()) {
+                error(s, "the expression " + where + " is empty: write a condition or a formula");
+                return Optional.empty();
+            }
+            return Optional.of(new Expression(s.getValue(), start(s)));
+        });
+    }
+
     Optional<LocalDate> date(Node node, String where) {
         return scalar(node, "a date (YYYY-MM-DD)", where).flatMap(s -> {
             try {

@@ -18,19 +18,26 @@ import org.apache.commons.csv.CSVPrinter;
 
 /**
  * The data dictionary: one entry per output column with its meaning, sources, window, what an empty
- * window gives, the recipe line that defined it, and statistics of the values written.
+ * window gives, the recipe line that defined it, its lineage in one line (see {@link Lineage}), and
+ * statistics of the values written.
  */
 public final class DataDictionary {
 
     static final List<String> HEADER = List.of("column", "role", "type", "meaning", "sources", "window", "filter",
-            "when_empty", "defined_at", "empty_share", "min", "mean", "max");
+            "when_empty", "defined_at", "lineage", "empty_share", "min", "mean", "max");
 
     private final Plan plan;
     private final RunResult run;
+    private final Lineage lineage;
 
     public DataDictionary(Plan plan, RunResult run) {
+        this(plan, run, Lineage.of(plan));
+    }
+
+    public DataDictionary(Plan plan, RunResult run, Lineage lineage) {
         this.plan = plan;
         this.run = run;
+        this.lineage = lineage;
     }
 
     public String csv() {
@@ -82,6 +89,7 @@ public final class DataDictionary {
         out.add(c.filter().orElse(""));
         out.add(c.whenEmpty());
         out.add(c.definedAt().isKnown() ? c.definedAt().file() + ":" + c.definedAt().line() : "");
+        out.add(lineage.column(c.name()).oneLine());
         out.add(String.format(Locale.ROOT, "%.4f", s.emptyShare()));
         boolean statistics = c.role() == Role.FEATURE || c.role() == Role.LABEL;
         out.add(statistics ? s.min().map(DataDictionary::rounded).orElse("") : "");

@@ -2,6 +2,7 @@ package dev.quern.report;
 
 import dev.quern.plan.LabelPlan;
 import dev.quern.plan.Plan;
+import dev.quern.run.RuleOutcome;
 import dev.quern.run.RunResult;
 import dev.quern.schema.SourceSchema;
 import dev.quern.schema.TimeColumnFacts;
@@ -27,7 +28,8 @@ public final class Provenance {
                         Optional<String> sourceFileSha256, Instant builtAt, Map<String, Duration> timings) {
     }
 
-    public static String render(Plan plan, SourceSchema schema, RunResult run, Facts facts) {
+    public static String render(Plan plan, SourceSchema schema, RunResult run, List<RuleOutcome> rules,
+                                Facts facts) {
         Map<String, Object> root = new LinkedHashMap<>();
         root.put("quern_version", facts.toolVersion());
         root.put("built_at", facts.builtAt().toString());
@@ -46,6 +48,7 @@ public final class Provenance {
         root.put("features", plan.features().size());
         root.put("rows_per_cutoff", run.rowsPerCutoff());
         plan.label().ifPresent(l -> root.put("label", label(l, plan, run)));
+        root.put("rules", RulesReport.json(rules));
         Map<String, Object> timings = new LinkedHashMap<>();
         facts.timings().forEach((k, v) -> timings.put(k + "_ms", v.toMillis()));
         root.put("timings", timings);

@@ -6,7 +6,8 @@ import java.util.Optional;
 /**
  * Running statistics of one output column, in constant memory: how many values are empty, and for
  * numbers the smallest, largest and mean (updated stably, as Welford did), for other values the smallest
- * and largest text.
+ * and largest text. Unless made {@link #summaryOnly}, it also keeps a {@link ValueSketch} of the values
+ * (level counts and a fixed-size sample), from which the report draws the column's chart.
  */
 public final class ColumnStats {
 
@@ -20,13 +21,25 @@ public final class ColumnStats {
     private double max = Double.NEGATIVE_INFINITY;
     private String minText;
     private String maxText;
+    private final ValueSketch sketch;
 
     public ColumnStats(String column, ValueType type) {
-        this.column = column;
-        this.type = type;
+        this(column, type, true);
     }
 
-    void add(Object value, String text) {
+    private ColumnStats(String column, ValueType type, boolean sketched) {
+        this.column = column;
+        this.type = type;
+        this.sketch = !sketched ? null : type.isNumber() ? ValueSketch.numbers() : ValueSketch.text();
+    }
+
+    /** Counts, extremes and mean without a sketch of the values: for per-cutoff tallies. */
+    public static ColumnStats summaryOnly(String column, ValueType type) {
+        return new ColumnStats(column, type, false);
+    }
+
+    /** Counts one cell: its value (null when empty) and the text written for it. */
+    public void add(Object value, String text) {
         rows++;
         if (value == null) {
             empty++;
@@ -39,8 +52,14 @@ public final class ColumnStats {
                 mean += (d - mean) / numbers;
                 min = Math.min(min, d);
                 max = Math.max(max, d);
+                if (sketch != null) {
+                    sketch.add(text, d);
+                }
             }
         } else {
+            if (sketch != null) {
+                sketch.add(text);
+            }
             if (minText == null || text.compareTo(minText) < 0) {
                 minText = text;
             }
@@ -48,6 +67,16 @@ public final class ColumnStats {
                 maxText = text;
             }
         }
+    }
+
+    /** The sketch of the non-empty values; empty for a summary-only tally. */
+    public Optional<ValueSketch> sketch() {
+        return Optional.ofNullable(sketch);
+    }
+
+    /** Rows with a value (for numbers: with a value that reads as a number). */
+    public long values() {
+        return type.isNumber() ? numbers : rows - empty;
     }
 
     public String column() {

@@ -38,7 +38,9 @@ public final class MatrixWriter {
         List<ColumnStats> stats = new ArrayList<>();
         columns.forEach(c -> stats.add(new ColumnStats(c.name(), c.type())));
         int cutoffIndex = indexOf(columns, Role.CUTOFF);
+        int labelIndex = columns.stream().map(OutputColumn::role).toList().indexOf(Role.LABEL);
         Map<String, Long> perCutoff = new LinkedHashMap<>();
+        Map<String, ColumnStats> labelPerCutoff = new LinkedHashMap<>();
         long started = System.nanoTime();
         long firstRow = 0;
         long rows = 0;
@@ -51,17 +53,27 @@ public final class MatrixWriter {
                 statement.setFetchSize(FETCH_SIZE);
                 csv.printRecord(query.columns());
                 String[] record = new String[columns.size()];
+                Object label = null;
                 try (ResultSet rs = statement.executeQuery(query.sql())) {
                     firstRow = System.nanoTime();
                     int[] types = ValueFormat.readTypes(rs.getMetaData(), query.plan().engine());
                     while (rs.next()) {
                         for (int i = 0; i < record.length; i++) {
                             Object value = ValueFormat.read(rs, i + 1, types[i]);
+                            if (i == labelIndex) {
+                                label = value;
+                            }
                             record[i] = ValueFormat.format(value, columns.get(i).type());
                             stats.get(i).add(value, record[i]);
                         }
                         csv.printRecord((Object[]) record);
                         perCutoff.merge(record[cutoffIndex], 1L, Long::sum);
+                        if (labelIndex >= 0) {
+                            OutputColumn labelColumn = columns.get(labelIndex);
+                            labelPerCutoff.computeIfAbsent(record[cutoffIndex],
+                                    c -> ColumnStats.summaryOnly(labelColumn.name(), labelColumn.type()))
+                                    .add(label, record[labelIndex]);
+                        }
                         if (++rows % FETCH_SIZE == 0) {
                             progress.rows(rows);
                         }
@@ -82,7 +94,7 @@ public final class MatrixWriter {
         long ended = System.nanoTime();
         long queryEnd = firstRow == 0 ? ended : firstRow;
         return new RunResult(rows, perCutoff, stats, Duration.ofNanos(queryEnd - started),
-                Duration.ofNanos(ended - queryEnd));
+                Duration.ofNanos(ended - queryEnd), labelPerCutoff);
     }
 
     private static int indexOf(List<OutputColumn> columns, Role role) {

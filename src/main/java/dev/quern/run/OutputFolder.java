@@ -23,7 +23,6 @@ public final class OutputFolder implements AutoCloseable {
 
     private final Path folder;
     private final Map<String, Path> pending = new LinkedHashMap<>();
-    private final List<Path> scratch = new ArrayList<>();
     private boolean committed;
 
     public OutputFolder(Path folder) {
@@ -64,14 +63,14 @@ public final class OutputFolder implements AutoCloseable {
         }
     }
 
-    /** A working file beside the outputs that is never committed, and is removed by commit or close. */
-    public Path scratch(String name) {
+    /** Drops a pending output: it is removed now and never committed (the CSV a Parquet matrix came from). */
+    public void discard(String name) {
+        Path temp = pending(name);
+        pending.remove(name);
         try {
-            Path temp = Files.createTempFile(folder, "." + name + ".", ".tmp");
-            scratch.add(temp);
-            return temp;
+            Files.deleteIfExists(temp);
         } catch (IOException e) {
-            throw QuernException.output("cannot write in " + folder + ": " + e.getMessage(), e);
+            throw QuernException.output("cannot remove the temporary file " + temp + ": " + e.getMessage(), e);
         }
     }
 
@@ -82,6 +81,18 @@ public final class OutputFolder implements AutoCloseable {
         } catch (IOException e) {
             throw QuernException.output("cannot write " + name + " in " + folder + ": " + e.getMessage(), e);
         }
+    }
+
+    /**
+     * The temporary file that holds {@code name} until commit, to read back an output already written and
+     * closed (the build compares its new matrix with an earlier one before anything is renamed).
+     */
+    public Path pending(String name) {
+        Path temp = pending.get(name);
+        if (temp == null) {
+            throw new IllegalStateException(name + " is not a pending output of " + folder);
+        }
+        return temp;
     }
 
     /** Moves every pending file to its final name; returns the final paths in the order written. */
@@ -103,14 +114,12 @@ public final class OutputFolder implements AutoCloseable {
         }
         pending.clear();
         committed = true;
-        removeScratch();
         return done;
     }
 
     /** Removes whatever was not committed. */
     @Override
     public void close() {
-        removeScratch();
         if (committed) {
             return;
         }
@@ -122,16 +131,5 @@ public final class OutputFolder implements AutoCloseable {
             }
         }
         pending.clear();
-    }
-
-    private void removeScratch() {
-        for (Path temp : scratch) {
-            try {
-                Files.deleteIfExists(temp);
-            } catch (IOException e) {
-                throw new UncheckedIOException("cannot remove the temporary file " + temp, e);
-            }
-        }
-        scratch.clear();
     }
 }

@@ -46,7 +46,7 @@ final class KeyChecker {
                 List<?> repeats = sql.select(key).from(table).where(key.isNotNull()).groupBy(key)
                         .having(DSL.count().gt(1)).orderBy(key).limit(EXAMPLES).fetch(0);
                 problems.error(Position.NONE, where + " is not unique: " + (filled - distinct)
-                        + " repeated value(s), e.g. " + repeats + "; a key must identify one row");
+                        + " repeated value(s), e.g. " + repeats + "; a key must identify one row: name a unique column as the key");
             }
         }
         problems.throwIfAny(Failure.DATA);

@@ -38,6 +38,10 @@ public final class SchemaReader {
     public SourceSchema read(Recipe recipe) {
         try {
             Map<String, TableInfo> tables = checkDeclarations(recipe);
+            if (engine == Engine.SQLITE) {
+                TextTimeDetector detector = new TextTimeDetector(engine.sql(connection));
+                tables.replaceAll((name, table) -> detector.retype(table));
+            }
             Map<String, TimeColumnFacts> times = new TimeSampler(connection, engine).sample(timeColumns(recipe), tables);
             new KeyChecker(connection, engine).checkUnique(joinKeys(recipe));
             return new SourceSchema(engine, tables, times);
@@ -94,12 +98,20 @@ public final class SchemaReader {
         for (Name identifier : spec.identifiers()) {
             requireColumn(table, identifier, "an identifier", problems);
         }
+        spec.updated().ifPresent(u -> requireColumn(table, u, "the update time", problems));
+        for (Name sensitive : spec.sensitive()) {
+            requireColumn(table, sensitive, "a sensitive column", problems);
+        }
+        for (var filled : spec.filled()) {
+            requireColumn(table, filled.column(), "a column filled in later", problems);
+            requireColumn(table, filled.at(), "the time it is filled at", problems);
+        }
     }
 
     private static void requireColumn(TableInfo table, Name column, String role, Diagnostics problems) {
         if (table.column(column.text()).isEmpty()) {
             problems.error(column.position(), "table " + table.name() + " has no column '" + column.text()
-                    + "' (named as " + role + ")" + Suggestions.hint(column.text(), table.columns().keySet()));
+                    + "' to serve as " + role + Suggestions.hint(column.text(), table.columns().keySet()));
         }
     }
 
@@ -119,6 +131,8 @@ public final class SchemaReader {
             spec.time().ifPresent(t -> add(columns, spec.name().text(), t.text()));
             spec.history().map(History::from).ifPresent(f -> add(columns, spec.name().text(), f.text()));
             spec.history().map(History::to).ifPresent(t -> add(columns, spec.name().text(), t.text()));
+            spec.updated().ifPresent(u -> add(columns, spec.name().text(), u.text()));
+            spec.filled().forEach(f -> add(columns, spec.name().text(), f.at().text()));
         }
         return columns;
     }

@@ -30,11 +30,15 @@ final class BlockSql {
 
     private final Block block;
     private final EngineSql engine;
+    private final SourceTables sources;
+    private final dev.quern.expr.ExprRenderer renderer;
     private final Map<String, String> inputs = new LinkedHashMap<>();
 
-    BlockSql(Block block, EngineSql engine) {
+    BlockSql(Block block, EngineSql engine, SourceTables sources, dev.quern.expr.ExprRenderer renderer) {
         this.block = block;
         this.engine = engine;
+        this.sources = sources;
+        this.renderer = renderer;
         for (Aggregate a : block.aggregates()) {
             a.input().ifPresent(c -> inputs.putIfAbsent(c.alias() + "." + c.column(), "v" + (inputs.size() + 1)));
         }
@@ -72,16 +76,19 @@ final class BlockSql {
         if (!engine.hasStableStddev()) {
             twoPassMeans(select);
         }
-        Table<?> from = Names.table(Names.COHORT).join(Names.table(path.table(), path.alias()))
+        Table<?> from = Names.table(Names.COHORT).join(sources.table(path.table(), path.alias()))
                 .on(Names.field(path.entityLink()).eq(Names.field(Names.COHORT, Names.KEY))
                         .and(time.ge(boundary(new Boundary.WindowStart(longest))))
                         .and(time.lt(boundary(new Boundary.CutoffEnd()))));
         for (Hop hop : path.hops()) {
-            TableOnConditionStep<?> joined = from.leftJoin(Names.table(hop.table(), hop.alias()))
+            TableOnConditionStep<?> joined = from.leftJoin(sources.table(hop.table(), hop.alias()))
                     .on(Names.field(hop.alias(), hop.key()).eq(Names.field(hop.link())));
             from = joined;
         }
-        return DSL.select(select).from(from);
+        org.jooq.Condition kept = block.filter()
+                .map(f -> renderer.condition(f, Handles.columns(Names.field(Names.COHORT, Names.CUTOFF))))
+                .orElse(DSL.noCondition());
+        return DSL.select(select).from(from).where(kept);
     }
 
     /**

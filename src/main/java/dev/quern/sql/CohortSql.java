@@ -22,8 +22,13 @@ final class CohortSql {
     private final List<Lookup> lookups;
     private final List<String> cutoffColumns;
     private final EngineSql engine;
+    private final SourceTables sources;
+    private final dev.quern.expr.ExprRenderer renderer;
 
-    CohortSql(Cohort cohort, List<String> cutoffColumns, List<Lookup> lookups, EngineSql engine) {
+    CohortSql(Cohort cohort, List<String> cutoffColumns, List<Lookup> lookups, EngineSql engine, SourceTables sources,
+              dev.quern.expr.ExprRenderer renderer) {
+        this.sources = sources;
+        this.renderer = renderer;
         this.cohort = cohort;
         this.cutoffColumns = List.copyOf(cutoffColumns);
         this.lookups = lookups;
@@ -51,12 +56,16 @@ final class CohortSql {
         for (Cohort.Exit exit : cohort.exits()) {
             Field<Object> exitTime = Names.field(exit.time().column());
             eligible = eligible.andNotExists(DSL.selectOne()
-                    .from(Names.table(exit.table(), exit.alias()))
+                    .from(sources.table(exit.table(), exit.alias()))
                     .where(Names.field(exit.entityLink()).eq(Names.field(cohort.key()))
                             .and(exitTime.lt(engine.boundaryFor(visibleUntil, exit.time().storage())))));
         }
+        if (cohort.filter().isPresent()) {
+            eligible = eligible.and(renderer.condition(cohort.filter().get(),
+                    Handles.columns(Names.field(Names.CUTOFFS, Names.CUTOFF))));
+        }
         return DSL.name(Names.COHORT).as(DSL.select(select)
-                .from(Names.table(cohort.table(), cohort.alias()))
+                .from(sources.table(cohort.table(), cohort.alias()))
                 .crossJoin(Names.table(Names.CUTOFFS))
                 .where(eligible));
     }

@@ -25,10 +25,14 @@ final class LabelSql {
 
     private final LabelPlan label;
     private final EngineSql engine;
+    private final SourceTables sources;
+    private final dev.quern.expr.ExprRenderer renderer;
 
-    LabelSql(LabelPlan label, EngineSql engine) {
+    LabelSql(LabelPlan label, EngineSql engine, SourceTables sources, dev.quern.expr.ExprRenderer renderer) {
         this.label = label;
         this.engine = engine;
+        this.sources = sources;
+        this.renderer = renderer;
     }
 
     CommonTableExpression<?> cte() {
@@ -39,15 +43,18 @@ final class LabelSql {
         select.add(Names.field(Names.COHORT, Names.CUTOFF).as(Names.CUTOFF));
         select.add(DSL.count().as(ROWS));
         label.input().ifPresent(c -> select.add(DSL.sum(Names.field(c).coerce(java.math.BigDecimal.class)).as(TOTAL)));
-        Table<?> from = Names.table(Names.COHORT).join(Names.table(path.table(), path.alias()))
+        Table<?> from = Names.table(Names.COHORT).join(sources.table(path.table(), path.alias()))
                 .on(Names.field(path.entityLink()).eq(Names.field(Names.COHORT, Names.KEY))
                         .and(time.ge(boundary(label.start())))
                         .and(time.lt(boundary(label.end()))));
         for (Hop hop : path.hops()) {
-            from = from.leftJoin(Names.table(hop.table(), hop.alias()))
+            from = from.leftJoin(sources.table(hop.table(), hop.alias()))
                     .on(Names.field(hop.alias(), hop.key()).eq(Names.field(hop.link())));
         }
-        return DSL.name(NAME).as(DSL.select(select).from(from)
+        org.jooq.Condition kept = label.filter()
+                .map(f -> renderer.condition(f, Handles.columns(Names.field(Names.COHORT, Names.CUTOFF))))
+                .orElse(DSL.noCondition());
+        return DSL.name(NAME).as(DSL.select(select).from(from).where(kept)
                 .groupBy(Names.field(Names.COHORT, Names.KEY), Names.field(Names.COHORT, Names.CUTOFF)));
     }
 

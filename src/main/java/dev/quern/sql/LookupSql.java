@@ -23,10 +23,12 @@ final class LookupSql {
 
     private final Lookup lookup;
     private final EngineSql engine;
+    private final SourceTables sources;
 
-    LookupSql(Lookup lookup, EngineSql engine) {
+    LookupSql(Lookup lookup, EngineSql engine, SourceTables sources) {
         this.lookup = lookup;
         this.engine = engine;
+        this.sources = sources;
     }
 
     String name() {
@@ -48,14 +50,14 @@ final class LookupSql {
             Field<Object> end = Names.field(f.to().column());
             Condition inForce = start.lt(engine.boundaryFor(visibleUntil, f.from().storage()))
                     .and(end.isNull().or(end.ge(engine.boundaryFor(visibleUntil, f.to().storage()))));
-            from = Names.table(Names.COHORT).join(Names.table(f.table(), f.alias()))
+            from = Names.table(Names.COHORT).join(sources.table(f.table(), f.alias()))
                     .on(Names.field(f.entityLink()).eq(Names.field(Names.COHORT, Names.KEY)).and(inForce));
             newestFirst.add(engine.newestFirst(start));
             f.key().ifPresent(k -> newestFirst.add(engine.newestFirst(Names.field(k))));
         } else {
             Lookup.Latest l = (Lookup.Latest) lookup;
             Field<Object> time = Names.field(l.path().time().column());
-            from = Names.table(Names.COHORT).join(Names.table(l.path().table(), l.path().alias()))
+            from = Names.table(Names.COHORT).join(sources.table(l.path().table(), l.path().alias()))
                     .on(Names.field(l.path().entityLink()).eq(Names.field(Names.COHORT, Names.KEY))
                             .and(time.lt(engine.boundaryFor(visibleUntil, l.path().time().storage()))));
             newestFirst.add(engine.newestFirst(time));

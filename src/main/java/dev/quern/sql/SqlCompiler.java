@@ -2,7 +2,9 @@ package dev.quern.sql;
 
 import dev.quern.plan.Block;
 import dev.quern.plan.Boundary;
+import dev.quern.expr.ExprRenderer;
 import dev.quern.plan.Cohort;
+import dev.quern.plan.DerivedColumn;
 import dev.quern.plan.LabelPlan;
 import dev.quern.plan.Lookup;
 import dev.quern.plan.LookupColumn;
@@ -33,6 +35,8 @@ public final class SqlCompiler {
     private final Plan plan;
     private final EngineSql engine;
     private final DSLContext sql;
+    private final ExprRenderer renderer;
+    private final SourceTables sources;
     private final Map<String, Field<Object>> outputs = new LinkedHashMap<>();
     private final List<CommonTableExpression<?>> ctes = new ArrayList<>();
     private final List<Joined> joins = new ArrayList<>();
@@ -44,6 +48,8 @@ public final class SqlCompiler {
         this.plan = plan;
         this.engine = EngineSql.of(plan.engine());
         this.sql = engine.context();
+        this.renderer = ExprRenderer.forEngine(plan.engine());
+        this.sources = new SourceTables(plan, renderer);
     }
 
     public static CompiledQuery compile(Plan plan) {
@@ -53,10 +59,10 @@ public final class SqlCompiler {
     private CompiledQuery compile() {
         List<String> cutoffColumns = cutoffColumns();
         ctes.add(cutoffs(cutoffColumns));
-        ctes.add(new CohortSql(plan.cohort(), cutoffColumns, plan.lookups(), engine).cte());
+        ctes.add(new CohortSql(plan.cohort(), cutoffColumns, plan.lookups(), engine, sources, renderer).cte());
         cohortOutputs(plan.cohort());
         for (Block block : plan.blocks()) {
-            BlockSql blockSql = new BlockSql(block, engine);
+            BlockSql blockSql = new BlockSql(block, engine, sources, renderer);
             ctes.add(blockSql.cte());
             joins.add(new Joined(block.name()));
             for (var a : block.aggregates()) {
@@ -67,6 +73,7 @@ public final class SqlCompiler {
         for (Lookup lookup : plan.lookups()) {
             lookup(lookup);
         }
+        plan.derived().forEach(this::derived);
         plan.label().ifPresent(this::label);
         List<SelectField<?>> select = new ArrayList<>();
         List<String> names = new ArrayList<>();
@@ -84,8 +91,8 @@ public final class SqlCompiler {
         }
         var ordered = query.orderBy(Names.field(Names.COHORT, Names.CUTOFF), Names.field(Names.COHORT, Names.KEY));
         String flat = sql.renderInlined(ordered);
-        String formatted = DSL.using(sql.dialect(), sql.settings().withRenderFormatted(true))
-                .renderInlined(ordered);
+        String formatted = DSL.using(sql.dialect(),
+                org.jooq.conf.SettingsTools.clone(sql.settings()).withRenderFormatted(true)).renderInlined(ordered);
         return new CompiledQuery(plan, flat, formatted, names);
     }
 
@@ -131,7 +138,7 @@ public final class SqlCompiler {
             }
             return;
         }
-        LookupSql lookupSql = new LookupSql(lookup, engine);
+        LookupSql lookupSql = new LookupSql(lookup, engine, sources);
         ctes.add(lookupSql.cte());
         String name = lookupSql.name();
         joins.add(new Joined(name));
@@ -140,8 +147,15 @@ public final class SqlCompiler {
         }
     }
 
+    /** A derived column is its formula over the final select's expressions of the columns it names. */
+    private void derived(DerivedColumn derived) {
+        Field<Object> cutoff = Names.field(Names.COHORT, Names.CUTOFF);
+        outputs.put(derived.column(), renderer.field(derived.expression(), binding ->
+                binding.handle() == dev.quern.plan.Cutoff.ROW ? cutoff : outputs.get((String) binding.handle())));
+    }
+
     private void label(LabelPlan label) {
-        LabelSql labelSql = new LabelSql(label, engine);
+        LabelSql labelSql = new LabelSql(label, engine, sources, renderer);
         ctes.add(labelSql.cte());
         joins.add(new Joined(LabelSql.NAME));
         outputs.put(label.column(), labelSql.value());

@@ -17,8 +17,8 @@ import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
 
 /**
- * The same recipe gives the same matrix on every engine: the demo recipe and every recipe fixture that
- * builds on the shipped sample, on PostgreSQL, MariaDB and DuckDB, each compared with SQLite's matrix:
+ * The same recipe gives the same matrix on every engine: every recipe in {@code recipes/} (the demo, and
+ * the demo with encodings) and every recipe fixture that builds on the shipped sample, on PostgreSQL, MariaDB and DuckDB, each compared with SQLite's matrix:
  * integers, text and dates exactly, floating values to 1e-9 relative (standard deviations 1e-8).
  */
 @ExtendWith(Databases.Extension.class)
@@ -26,9 +26,10 @@ class EquivalenceTest {
 
     static Stream<Arguments> recipesOnEngines() throws IOException {
         List<Path> recipes = new ArrayList<>();
-        recipes.add(Databases.DEMO);
-        try (Stream<Path> files = Files.list(Path.of("src", "test", "resources", "recipes"))) {
-            files.filter(f -> f.toString().endsWith(".yaml")).sorted().forEach(recipes::add);
+        for (Path folder : List.of(Path.of("recipes"), Path.of("src", "test", "resources", "recipes"))) {
+            try (Stream<Path> files = Files.list(folder)) {
+                files.filter(f -> f.toString().endsWith(".yaml")).sorted().forEach(recipes::add);
+            }
         }
         return recipes.stream().flatMap(r -> Stream.of(Target.POSTGRES, Target.MARIADB, Target.DUCKDB)
                 .map(t -> Arguments.of(r, t)));

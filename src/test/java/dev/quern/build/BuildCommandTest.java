@@ -1,0 +1,124 @@
+package dev.quern.build;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.quern.cli.Main;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.security.MessageDigest;
+import java.util.List;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/** The build command end to end on the shipped sample: outputs, exit codes, and the source left alone. */
+class BuildCommandTest {
+
+    private static final Path SAMPLE = Path.of("sample-db/cycle-club.sqlite");
+    private static final String DEMO = "recipes/member-churn.yaml";
+
+    @TempDir
+    Path folder;
+
+    private final StringWriter out = new StringWriter();
+    private final StringWriter err = new StringWriter();
+
+    private int quern(String... args) {
+        return Main.run(new PrintWriter(out, true), new PrintWriter(err, true), args);
+    }
+
+    @Test
+    void buildsTheDemoAndLeavesTheSourceUnchanged() throws Exception {
+        byte[] before = sha256(SAMPLE);
+        long modified = Files.getLastModifiedTime(SAMPLE).toMillis();
+        Path target = folder.resolve("demo");
+
+        assertEquals(0, quern("build", DEMO, "--out", target.toString()), err.toString());
+
+        assertArrayEquals(before, sha256(SAMPLE), "the source's bytes");
+        assertEquals(modified, Files.getLastModifiedTime(SAMPLE).toMillis(), "the source's modification time");
+        assertEquals(List.of("dictionary.csv", "dictionary.md", "matrix.csv", "provenance.json", "report.html",
+                "rules.md"), names(target));
+        List<String> matrix = Files.readAllLines(target.resolve("matrix.csv"));
+        assertTrue(matrix.get(0).startsWith("member_id,cutoff,rides_count_30d,"), matrix.get(0));
+        assertTrue(matrix.get(0).endsWith(",cancels_in_60d"), matrix.get(0));
+        assertTrue(out.toString().contains((matrix.size() - 1) + " rows x 36 columns (19 cutoffs)"), out.toString());
+        assertEquals("", err.toString(), "no progress noise when standard error is not a terminal");
+    }
+
+    @Test
+    void aMissingSourceFileIsAnErrorAndIsNotCreated() throws IOException {
+        Path recipe = folder.resolve("missing.yaml");
+        Files.writeString(recipe, Files.readString(Path.of(DEMO))
+                .replace("../sample-db/cycle-club.sqlite", "nowhere.sqlite"));
+
+        assertEquals(66, quern("build", recipe.toString(), "--out", folder.resolve("out").toString()));
+
+        assertFalse(Files.exists(folder.resolve("nowhere.sqlite")), "no empty database is created");
+        assertTrue(err.toString().contains("nowhere.sqlite does not exist"), err.toString());
+        assertFalse(err.toString().contains("\tat "), "no stack trace");
+        assertFalse(Files.exists(folder.resolve("out/matrix.csv")));
+    }
+
+    @Test
+    void aFailedBuildLeavesTheEarlierOutputsAsTheyWere() throws IOException {
+        Path target = folder.resolve("out");
+        Files.createDirectories(target);
+        Files.writeString(target.resolve("matrix.csv"), "an earlier build\n");
+        Path recipe = folder.resolve("broken.yaml");
+        Files.writeString(recipe, Files.readString(Path.of(DEMO))
+                .replace("../sample-db/cycle-club.sqlite", Path.of("sample-db/cycle-club.sqlite").toAbsolutePath().toString())
+                .replace("sum(distance_km)", "sum(distnce_km)"));
+
+        assertEquals(65, quern("build", recipe.toString(), "--out", target.toString()));
+
+        assertEquals("an earlier build\n", Files.readString(target.resolve("matrix.csv")));
+        assertEquals(List.of("matrix.csv"), names(target), "no temporary files left behind");
+        assertTrue(err.toString().contains("'distnce_km' (did you mean distance_km?)"), err.toString());
+    }
+
+    @Test
+    void usageMistakesExitWithTwo() {
+        assertEquals(2, quern("build", DEMO));
+        assertTrue(err.toString().contains("Missing required option: '--out=DIR'"), err.toString());
+        assertEquals(2, quern("biuld", DEMO));
+        assertTrue(err.toString().contains("build"), "suggests the command meant: " + err);
+    }
+
+    @Test
+    void sqlPrintsOneSelectForTheWholeMatrix() {
+        assertEquals(0, quern("sql", DEMO), err.toString());
+        String sql = out.toString();
+        assertTrue(sql.startsWith("with"), sql.substring(0, 40));
+        // One grouped scan per block, lookup and label: never one subquery per feature.
+        assertEquals(7, count(sql, "group by"), "6 blocks and the label are grouped scans");
+        // rides is read by two blocks (its own and the one through stations), each once for all windows,
+        // and each time without the rides its plausibility rule excludes.
+        assertEquals(2, count(sql, "from rides\n"), sql);
+        assertEquals(2, count(sql, "rides.distance_km"), sql);
+    }
+
+    private static int count(String text, String part) {
+        int n = 0;
+        for (int i = text.indexOf(part); i >= 0; i = text.indexOf(part, i + 1)) {
+            n++;
+        }
+        return n;
+    }
+
+    private static List<String> names(Path dir) throws IOException {
+        try (Stream<Path> files = Files.list(dir)) {
+            return files.map(p -> p.getFileName().toString()).sorted().toList();
+        }
+    }
+
+    private static byte[] sha256(Path file) throws Exception {
+        return MessageDigest.getInstance("SHA-256").digest(Files.readAllBytes(file));
+    }
+}
