@@ -75,7 +75,7 @@ public final class DatabaseLoader {
      * schema). The URL may name {@code ${VARIABLES}}; it never holds a credential itself.
      */
     public static LoadSummary load(Path sqliteFile, String targetUrl, boolean replace, Progress progress) {
-        ConnectionUrl target = ConnectionUrl.of(targetUrl, Position.NONE);
+        ConnectionUrl target = ConnectionUrl.target(targetUrl);
         try {
             return new DatabaseLoader(sqliteFile, target, replace, progress).load();
         } finally {

@@ -31,34 +31,42 @@ public final class ConnectionUrl {
 
     private final String written;
     private final Position position;
+    private final String role;
     private final Engine engine;
     private final UnaryOperator<String> environment;
 
-    private ConnectionUrl(String written, Position position, Engine engine, UnaryOperator<String> environment) {
+    private ConnectionUrl(String written, Position position, String role, Engine engine,
+                          UnaryOperator<String> environment) {
         this.written = written;
         this.position = position;
+        this.role = role;
         this.engine = engine;
         this.environment = environment;
     }
 
-    /** The URL {@code written} at {@code position}, its variables read from the process environment. */
+    /** A recipe's source {@code written} at {@code position}, its variables read from the process environment. */
     public static ConnectionUrl of(String written, Position position) {
-        return of(written, position, System::getenv);
+        return of(written, position, "source", System::getenv);
     }
 
-    static ConnectionUrl of(String written, Position position, UnaryOperator<String> environment) {
+    /** The database {@code quern load} writes to, as the command line names it. */
+    public static ConnectionUrl target(String written) {
+        return of(written, Position.NONE, "target", System::getenv);
+    }
+
+    static ConnectionUrl of(String written, Position position, String role, UnaryOperator<String> environment) {
         Objects.requireNonNull(written, "written");
         Objects.requireNonNull(position, "position");
         Objects.requireNonNull(environment, "environment");
         Engine engine = Engine.forUrl(written).orElseThrow(() -> QuernException.recipe(position,
-                "'" + display(written) + "' is not a JDBC URL Quern knows; it starts with one of "
+                role + " '" + display(written) + "' is not a JDBC URL Quern knows; it starts with one of "
                         + Arrays.stream(Engine.values()).map(Engine::urlPrefix).toList()));
         Diagnostics problems = new Diagnostics();
         for (Pattern p : new Pattern[] {SECRET_PARAMETER, USER_INFO}) {
             Matcher m = p.matcher(written);
             while (m.find()) {
                 if (!m.group(2).isEmpty() && !VARIABLE.matcher(m.group(2)).matches()) {
-                    problems.error(position, "the URL '" + display(written) + "' holds a credential written out;"
+                    problems.error(position, "the " + role + " '" + display(written) + "' holds a credential written out;"
                             + " credentials come only from environment variables: write "
                             + (p == USER_INFO ? "//user:${PGPASSWORD}@" : m.group(1) + "${PGPASSWORD}")
                             + " and set that variable");
@@ -66,7 +74,7 @@ public final class ConnectionUrl {
             }
         }
         problems.throwIfAny(Failure.RECIPE);
-        return new ConnectionUrl(written, position, engine, environment);
+        return new ConnectionUrl(written, position, role, engine, environment);
     }
 
     public Engine engine() {
@@ -98,7 +106,7 @@ public final class ConnectionUrl {
         while (m.find()) {
             String value = environment.apply(m.group(1));
             if (value == null) {
-                missing.error(position, "the URL names the environment variable " + m.group(1)
+                missing.error(position, "the " + role + " names the environment variable " + m.group(1)
                         + ", which is not set; set it before running");
                 value = "";
             }
@@ -132,7 +140,7 @@ public final class ConnectionUrl {
         }
         rest.append(written.substring(from));
         String withoutSecrets = rest.toString().replaceAll("([?;&])[&;]+", "$1").replaceAll("[?&;]+$", "");
-        return DriverManager.getConnection(of(withoutSecrets, position, environment).expand(), all);
+        return DriverManager.getConnection(of(withoutSecrets, position, role, environment).expand(), all);
     }
 
     /**

@@ -45,7 +45,7 @@ public final class Source {
 
     static Source of(Name url, Path baseDirectory, UnaryOperator<String> environment) {
         Objects.requireNonNull(baseDirectory, "baseDirectory");
-        return new Source(ConnectionUrl.of(url.text(), url.position(), environment), baseDirectory);
+        return new Source(ConnectionUrl.of(url.text(), url.position(), "source", environment), baseDirectory);
     }
 
     public Engine engine() {

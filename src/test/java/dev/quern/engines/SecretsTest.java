@@ -178,7 +178,7 @@ class SecretsTest {
                 "jdbc:postgresql://127.0.0.1:5432/test?user=postgres&password=${QUERN_TEST_NOT_SET_ANYWHERE}");
 
         assertEquals(Failure.RECIPE.exitCode(), run.code, run.err);
-        assertTrue(run.err.contains("the URL names the environment variable QUERN_TEST_NOT_SET_ANYWHERE, which is not"
+        assertTrue(run.err.contains("the source names the environment variable QUERN_TEST_NOT_SET_ANYWHERE, which is not"
                 + " set"), run.err);
     }
 
