@@ -18,11 +18,13 @@ import dev.quern.report.Lineage;
 import dev.quern.report.Provenance;
 import dev.quern.report.RulesReport;
 import dev.quern.report.Thresholds;
+import dev.quern.run.MatrixFormat;
 import dev.quern.run.RuleOutcome;
 import dev.quern.run.RuleRunner;
 import dev.quern.sql.RuleQueries;
 import dev.quern.run.MatrixWriter;
 import dev.quern.run.OutputFolder;
+import dev.quern.run.ParquetWriter;
 import dev.quern.run.Progress;
 import dev.quern.run.RunResult;
 import dev.quern.schema.SchemaReader;
@@ -61,6 +63,7 @@ import java.util.Optional;
 public final class Quern {
 
     public static final String MATRIX = "matrix.csv";
+    public static final String MATRIX_PARQUET = "matrix.parquet";
     public static final String DICTIONARY_CSV = "dictionary.csv";
     public static final String DICTIONARY_MD = "dictionary.md";
     public static final String PROVENANCE = "provenance.json";
@@ -73,16 +76,19 @@ public final class Quern {
     private final Path recipeFolder;
     private final Optional<List<LocalDate>> cutoffs;
     private final Optional<Path> fitted;
+    private final MatrixFormat format;
 
     private Quern(Recipe recipe, Path recipeFolder) {
-        this(recipe, recipeFolder, Optional.empty(), Optional.empty());
+        this(recipe, recipeFolder, Optional.empty(), Optional.empty(), MatrixFormat.CSV);
     }
 
-    private Quern(Recipe recipe, Path recipeFolder, Optional<List<LocalDate>> cutoffs, Optional<Path> fitted) {
+    private Quern(Recipe recipe, Path recipeFolder, Optional<List<LocalDate>> cutoffs, Optional<Path> fitted,
+                  MatrixFormat format) {
         this.recipe = recipe;
         this.recipeFolder = recipeFolder;
         this.cutoffs = cutoffs;
         this.fitted = fitted;
+        this.format = format;
     }
 
     /** Reads and parses a recipe file; relative SQLite paths in it are read from the file's folder. */
@@ -98,17 +104,22 @@ public final class Quern {
 
     /** The same recipe reading another source (a JDBC URL; may name {@code ${VARIABLES}}). */
     public Quern withSource(String url) {
-        return new Quern(recipe.withSource(url), Path.of("").toAbsolutePath(), cutoffs, fitted);
+        return new Quern(recipe.withSource(url), Path.of("").toAbsolutePath(), cutoffs, fitted, format);
     }
 
     /** The same recipe built at other cutoffs (a scoring run): same columns, other rows. */
     public Quern withCutoffs(List<LocalDate> dates) {
-        return new Quern(recipe, recipeFolder, Optional.of(List.copyOf(dates)), fitted);
+        return new Quern(recipe, recipeFolder, Optional.of(List.copyOf(dates)), fitted, format);
     }
 
     /** Encodings taken from an earlier build's fitted file instead of fitted again. */
     public Quern withFitted(Path file) {
-        return new Quern(recipe, recipeFolder, cutoffs, Optional.of(file));
+        return new Quern(recipe, recipeFolder, cutoffs, Optional.of(file), format);
+    }
+
+    /** The same recipe, writing the matrix in {@code format} (CSV unless told). */
+    public Quern withFormat(MatrixFormat format) {
+        return new Quern(recipe, recipeFolder, cutoffs, fitted, java.util.Objects.requireNonNull(format, "format"));
     }
 
     public Recipe recipe() {
@@ -211,6 +222,11 @@ public final class Quern {
             out.write(REPORT, HtmlReport.render(table, run, lineage,
                     new HtmlReport.Facts(recipe.file(), recipeSha256, Version.current(), source.display(), builtAt),
                     drift, Thresholds.DEFAULT));
+            if (format == MatrixFormat.PARQUET) {
+                progress.stage("writing " + format.fileName());
+                ParquetWriter.convert(out.pending(MATRIX), table.columns(), out.reserve(format.fileName()));
+                out.discard(MATRIX);
+            }
             List<Path> files = out.commit();
             return new BuildSummary(compilation, run, rules, files, table.columns(), drift, leaks);
         } catch (IOException e) {

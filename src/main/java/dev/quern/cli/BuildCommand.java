@@ -3,6 +3,7 @@ package dev.quern.cli;
 import dev.quern.BuildSummary;
 import dev.quern.Quern;
 import dev.quern.report.Thresholds;
+import dev.quern.run.MatrixFormat;
 import dev.quern.run.TerminalProgress;
 import java.nio.file.Path;
 import java.time.LocalDate;
@@ -27,6 +28,10 @@ final class BuildCommand implements Callable<Integer> {
     @Option(names = {"-o", "--out"}, required = true, paramLabel = "DIR", description = "The output folder.")
     Path out;
 
+    @Option(names = "--format", defaultValue = "csv", paramLabel = "FORMAT",
+            description = "The matrix file: csv (default) or parquet.")
+    MatrixFormat format;
+
     @Option(names = "--fitted", paramLabel = "FILE",
             description = "Reuse the encodings an earlier build fitted (its fitted.json) instead of fitting again.")
     Path fitted;
@@ -44,7 +49,7 @@ final class BuildCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
-        Quern quern = recipe.load();
+        Quern quern = recipe.load().withFormat(format);
         if (cutoffs != null) {
             quern = quern.withCutoffs(cutoffs);
         }

@@ -12,7 +12,8 @@ import picocli.CommandLine.Command;
 @Command(name = "quern", mixinStandardHelpOptions = true, versionProvider = Main.VersionProvider.class,
         description = "Compiles a feature recipe into SQL and builds a point-in-time modelling table.",
         subcommands = {BuildCommand.class, AuditCommand.class, CheckCommand.class, SqlCommand.class,
-                LineageCommand.class, CompareCommand.class, SampleCommand.class, CommandLine.HelpCommand.class})
+                LineageCommand.class, CompareCommand.class, SampleCommand.class, LoadCommand.class,
+                CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
 
     @CommandLine.Spec
@@ -25,6 +26,7 @@ public final class Main implements Runnable {
     /** Runs one command line; returns its exit code. */
     public static int run(PrintWriter out, PrintWriter err, String... args) {
         CommandLine cli = new CommandLine(new Main());
+        cli.setCaseInsensitiveEnumValuesAllowed(true);
         cli.setOut(out);
         cli.setErr(err);
         cli.setExecutionExceptionHandler((e, line, parsed) -> report(e, err));
@@ -58,7 +60,7 @@ public final class Main implements Runnable {
     @Override
     public void run() {
         throw new CommandLine.ParameterException(spec.commandLine(),
-                "name a command: build, audit, check, sql, lineage, compare or sample");
+                "name a command: build, audit, check, sql, lineage, compare, sample or load");
     }
 
     /** Reports the version Maven stamped into the jar. */

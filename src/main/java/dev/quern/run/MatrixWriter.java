@@ -56,9 +56,10 @@ public final class MatrixWriter {
                 Object label = null;
                 try (ResultSet rs = statement.executeQuery(query.sql())) {
                     firstRow = System.nanoTime();
+                    int[] types = ValueFormat.readTypes(rs.getMetaData(), query.plan().engine());
                     while (rs.next()) {
                         for (int i = 0; i < record.length; i++) {
-                            Object value = rs.getObject(i + 1);
+                            Object value = ValueFormat.read(rs, i + 1, types[i]);
                             if (i == labelIndex) {
                                 label = value;
                             }

@@ -49,6 +49,20 @@ public final class OutputFolder implements AutoCloseable {
         }
     }
 
+    /**
+     * The temporary file that becomes {@code name} on commit, for writers that need a path rather than a
+     * stream (DuckDB's COPY).
+     */
+    public Path reserve(String name) {
+        try {
+            Path temp = Files.createTempFile(folder, "." + name + ".", ".tmp");
+            pending.put(name, temp);
+            return temp;
+        } catch (IOException e) {
+            throw QuernException.output("cannot write in " + folder + ": " + e.getMessage(), e);
+        }
+    }
+
     /** Writes a whole text output. */
     public void write(String name, String text) {
         try (Writer w = open(name)) {

@@ -1,7 +1,14 @@
 package dev.quern.run;
 
+import dev.quern.schema.Engine;
 import dev.quern.schema.ValueType;
 import java.math.BigDecimal;
+import java.sql.ResultSet;
+import java.sql.ResultSetMetaData;
+import java.sql.SQLException;
+import java.sql.Types;
+import java.time.LocalDate;
+import java.time.LocalDateTime;
 import java.time.format.DateTimeFormatter;
 
 /**
@@ -26,6 +33,29 @@ public final class ValueFormat {
             case TIMESTAMP -> timestamp(value);
             case BOOLEAN -> bool(value);
             default -> value.toString();
+        };
+    }
+
+    /**
+     * How to read each column of a result: dates and times as {@code java.time} values. A
+     * {@code java.sql.Timestamp} passes through the JVM's time zone, which moves a time that falls in a
+     * daylight-saving gap (02:30 on a spring-forward night) by an hour. SQLite returns dates as the text
+     * they are, which is read as it is.
+     */
+    public static int[] readTypes(ResultSetMetaData meta, Engine engine) throws SQLException {
+        int[] types = new int[meta.getColumnCount()];
+        for (int i = 0; i < types.length; i++) {
+            types[i] = engine == Engine.SQLITE ? Types.OTHER : meta.getColumnType(i + 1);
+        }
+        return types;
+    }
+
+    /** One value of a result, as {@link #readTypes} says to read it. */
+    public static Object read(ResultSet rs, int column, int type) throws SQLException {
+        return switch (type) {
+            case Types.DATE -> rs.getObject(column, LocalDate.class);
+            case Types.TIMESTAMP -> rs.getObject(column, LocalDateTime.class);
+            default -> rs.getObject(column);
         };
     }
 
@@ -77,11 +107,14 @@ public final class ValueFormat {
         if (value instanceof java.sql.Date d) {
             return d.toLocalDate().toString();
         }
-        if (value instanceof java.time.LocalDate d) {
+        if (value instanceof LocalDate d) {
             return d.toString();
         }
         if (value instanceof java.sql.Timestamp t) {
             return t.toLocalDateTime().toLocalDate().toString();
+        }
+        if (value instanceof LocalDateTime t) {
+            return t.toLocalDate().toString();
         }
         return value.toString();
     }
@@ -90,7 +123,7 @@ public final class ValueFormat {
         if (value instanceof java.sql.Timestamp t) {
             return TIMESTAMP.format(t.toLocalDateTime());
         }
-        if (value instanceof java.time.LocalDateTime t) {
+        if (value instanceof LocalDateTime t) {
             return TIMESTAMP.format(t);
         }
         return value.toString();

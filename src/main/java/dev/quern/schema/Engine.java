@@ -18,12 +18,19 @@ public enum Engine {
 
     /** Held so that the logging configuration below is not collected with the logger. */
     private static final java.util.logging.Logger JOOQ_LOG = java.util.logging.Logger.getLogger("org.jooq");
+    private static final java.util.logging.Logger MARIADB_LOG = java.util.logging.Logger.getLogger("org.mariadb.jdbc");
 
     static {
         // jOOQ prints a banner, tips and version notes on first use unless told not to; Quern's output is its own.
         System.setProperty("org.jooq.no-logo", "true");
         System.setProperty("org.jooq.no-tips", "true");
         JOOQ_LOG.setLevel(java.util.logging.Level.WARNING);
+        // MariaDB's driver prints every failed statement to the console unless routed to java.util.logging;
+        // Quern reports failures itself, in its own words and without the URL.
+        if (System.getProperty("mariadb.logging.fallback") == null) {
+            System.setProperty("mariadb.logging.fallback", "JDK");
+        }
+        MARIADB_LOG.setLevel(java.util.logging.Level.OFF);
     }
 
     private final String label;

@@ -2,8 +2,10 @@ package dev.quern.sql;
 
 import dev.quern.schema.Engine;
 import dev.quern.schema.TimeStorage;
+import dev.quern.schema.ValueType;
 import org.jooq.DSLContext;
 import org.jooq.Field;
+import org.jooq.SortField;
 import org.jooq.impl.DSL;
 import org.jooq.impl.SQLDataType;
 
@@ -51,6 +53,19 @@ abstract class EngineSql {
     /** The mean of a number column: engines differ in the precision they keep for integer input. */
     Field<Object> mean(Field<Object> value) {
         return DSL.avg(value.cast(SQLDataType.DOUBLE).coerce(java.math.BigDecimal.class)).coerce(Object.class);
+    }
+
+    /**
+     * Descending order with empty values last, as SQLite, MariaDB and DuckDB sort them by default: lookups
+     * pick the newest row, and an empty time or key must never count as the newest.
+     */
+    SortField<Object> newestFirst(Field<Object> field) {
+        return field.desc();
+    }
+
+    /** An output column as the final select hands it to the driver. */
+    Field<Object> output(Field<Object> value, ValueType type) {
+        return value;
     }
 
     /** The date part of a time, as a date. */

@@ -52,16 +52,16 @@ final class LookupSql {
                     .and(end.isNull().or(end.ge(engine.boundaryFor(visibleUntil, f.to().storage()))));
             from = Names.table(Names.COHORT).join(sources.table(f.table(), f.alias()))
                     .on(Names.field(f.entityLink()).eq(Names.field(Names.COHORT, Names.KEY)).and(inForce));
-            newestFirst.add(start.desc());
-            f.key().ifPresent(k -> newestFirst.add(Names.field(k).desc()));
+            newestFirst.add(engine.newestFirst(start));
+            f.key().ifPresent(k -> newestFirst.add(engine.newestFirst(Names.field(k))));
         } else {
             Lookup.Latest l = (Lookup.Latest) lookup;
             Field<Object> time = Names.field(l.path().time().column());
             from = Names.table(Names.COHORT).join(sources.table(l.path().table(), l.path().alias()))
                     .on(Names.field(l.path().entityLink()).eq(Names.field(Names.COHORT, Names.KEY))
                             .and(time.lt(engine.boundaryFor(visibleUntil, l.path().time().storage()))));
-            newestFirst.add(time.desc());
-            l.path().key().ifPresent(k -> newestFirst.add(Names.field(k).desc()));
+            newestFirst.add(engine.newestFirst(time));
+            l.path().key().ifPresent(k -> newestFirst.add(engine.newestFirst(Names.field(k))));
         }
         List<SelectField<?>> inner = new ArrayList<>();
         inner.add(Names.field(Names.COHORT, Names.KEY).as(Names.KEY));

@@ -3,6 +3,7 @@ package dev.quern.sql;
 import dev.quern.schema.Engine;
 import dev.quern.schema.TimeStorage;
 import org.jooq.Field;
+import org.jooq.SortField;
 
 /** PostgreSQL, and DuckDB, which follows PostgreSQL's date arithmetic and aggregates. */
 final class PostgresSql extends EngineSql {
@@ -22,6 +23,12 @@ final class PostgresSql extends EngineSql {
     @Override
     Field<Object> daysFrom(Field<Object> time, TimeStorage storage, Field<Object> cutoff) {
         return org.jooq.impl.DSL.field("({0} - {1})", Object.class, cutoff, dayOf(time, storage));
+    }
+
+    /** PostgreSQL sorts NULL above every value, so DESC alone would put empty values first. */
+    @Override
+    SortField<Object> newestFirst(Field<Object> field) {
+        return field.desc().nullsLast();
     }
 
     /** stddev_samp uses a stable update (Youngs-Cramer in PostgreSQL, Welford in DuckDB). */

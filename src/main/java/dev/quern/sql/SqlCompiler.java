@@ -82,7 +82,7 @@ public final class SqlCompiler {
             if (f == null) {
                 throw new IllegalStateException("no expression for output column " + c.name());
             }
-            select.add(f.as(DSL.name(c.name())));
+            select.add(engine.output(f, c.type()).as(DSL.name(c.name())));
             names.add(c.name());
         }
         SelectJoinStep<?> query = sql.with(ctes).select(select).from(Names.table(Names.COHORT));
