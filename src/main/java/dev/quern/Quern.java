@@ -21,6 +21,7 @@ import dev.quern.report.Thresholds;
 import dev.quern.run.MatrixFormat;
 import dev.quern.run.RuleOutcome;
 import dev.quern.run.RuleRunner;
+import dev.quern.sql.LateRows;
 import dev.quern.sql.RuleQueries;
 import dev.quern.run.MatrixWriter;
 import dev.quern.run.OutputFolder;
@@ -165,6 +166,8 @@ public final class Quern {
             progress.stage("checking the data against the recipe's rules");
             long rulesStarted = System.nanoTime();
             List<RuleOutcome> rules = RuleRunner.run(RuleQueries.of(compilation.plan()), connection);
+            List<LateRows.Query> lateQueries = LateRows.of(compilation.plan());
+            Map<String, Long> late = RuleRunner.countLate(lateQueries, connection);
             timings.put("rules", Duration.ofNanos(System.nanoTime() - rulesStarted));
             progress.stage("building " + MATRIX);
             RunResult run;
@@ -208,7 +211,8 @@ public final class Quern {
             String dictionaryCsv = dictionary.csv();
             out.write(DICTIONARY_CSV, dictionaryCsv);
             out.write(DICTIONARY_MD, dictionary.markdown());
-            out.write(RULES, RulesReport.markdown(recipe.name().text(), rules, compilation.schema(), eventTimes()));
+            out.write(RULES, RulesReport.markdown(recipe.name().text(), rules, compilation.schema(), eventTimes(), late,
+                    lateQueries.stream().map(LateRows.Query::from).findFirst()));
             String provenance = Provenance.render(table, compilation.schema(), run, rules,
                     new Provenance.Facts(recipe.file(), recipeSha256, Version.current(), source.display(),
                             source.file().map(Quern::sha256), builtAt, timings));

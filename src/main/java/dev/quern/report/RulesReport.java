@@ -19,7 +19,8 @@ public final class RulesReport {
 
     /** {@code eventTimes}: the {@code table.column} names read as event times (empty validity ends mean "still"). */
     public static String markdown(String recipe, List<RuleOutcome> outcomes, SourceSchema schema,
-                                  java.util.Set<String> eventTimes) {
+                                  java.util.Set<String> eventTimes, Map<String, Long> late,
+                                  java.util.Optional<java.time.LocalDate> lateFrom) {
         StringBuilder md = new StringBuilder("# Data-quality rules: ").append(recipe).append("\n\n");
         if (outcomes.isEmpty()) {
             md.append("The recipe declares no rules.\n");
@@ -45,6 +46,11 @@ public final class RulesReport {
         if (!emptyTimes.isEmpty()) {
             md.append("\n## Empty times\n\nRows whose time is empty fall in no window and no horizon.\n\n");
             emptyTimes.forEach(l -> md.append(l).append('\n'));
+        }
+        if (lateFrom.isPresent() && late.values().stream().anyMatch(n -> n > 0)) {
+            md.append("\n## Rows after the last horizon\n\nRows dated on or after ").append(lateFrom.get())
+                    .append(", where no cutoff's window or label horizon reaches, are read by no row.\n\n");
+            late.forEach((column, n) -> md.append("- ").append(column).append(": ").append(n).append(" rows\n"));
         }
         return md.toString();
     }

@@ -39,6 +39,22 @@ public final class RuleRunner {
         return outcomes;
     }
 
+    /** Counts, per event time column, the rows dated where no cutoff reaches: {@code table.column} to count. */
+    public static java.util.Map<String, Long> countLate(List<dev.quern.sql.LateRows.Query> queries,
+                                                        Connection connection) {
+        java.util.Map<String, Long> out = new java.util.LinkedHashMap<>();
+        for (dev.quern.sql.LateRows.Query q : queries) {
+            try (Statement s = connection.createStatement(); ResultSet rs = s.executeQuery(q.sql())) {
+                rs.next();
+                out.put(q.column(), rs.getLong(1));
+            } catch (SQLException e) {
+                throw QuernException.data("counting the rows of " + q.column() + " after the last horizon failed: "
+                        + e.getMessage(), e);
+            }
+        }
+        return out;
+    }
+
     private static RuleOutcome measure(RuleQuery q, Connection connection) {
         try (Statement s = connection.createStatement()) {
             long checked;
