@@ -1,5 +1,6 @@
 package dev.quern;
 
+import dev.quern.audit.AuditReport;
 import dev.quern.plan.OutputColumn;
 import dev.quern.report.Comparison;
 import dev.quern.run.RuleOutcome;
@@ -12,10 +13,10 @@ import java.util.Optional;
 /**
  * What a build wrote and how it went. {@code columns} are the matrix's columns as written: the plan's, or
  * after the encode stage the encoded ones; {@code drift} is the comparison with an earlier build when one
- * was named.
+ * was named; {@code audit} is what the leakage audit found.
  */
 public record BuildSummary(Compilation compilation, RunResult run, List<RuleOutcome> rules, List<Path> files,
-                           List<OutputColumn> columns, Optional<Comparison> drift) {
+                           List<OutputColumn> columns, Optional<Comparison> drift, AuditReport audit) {
     public BuildSummary {
         Objects.requireNonNull(compilation, "compilation");
         Objects.requireNonNull(run, "run");
@@ -23,10 +24,6 @@ public record BuildSummary(Compilation compilation, RunResult run, List<RuleOutc
         files = List.copyOf(files);
         columns = List.copyOf(columns);
         Objects.requireNonNull(drift, "drift");
-    }
-
-    /** A build without an encode stage and without a comparison: the matrix has the plan's columns. */
-    public BuildSummary(Compilation compilation, RunResult run, List<RuleOutcome> rules, List<Path> files) {
-        this(compilation, run, rules, files, compilation.plan().columns(), Optional.empty());
+        Objects.requireNonNull(audit, "audit");
     }
 }

@@ -1,5 +1,7 @@
 package dev.quern;
 
+import dev.quern.audit.Audit;
+import dev.quern.audit.AuditReport;
 import dev.quern.encode.EncodePlan;
 import dev.quern.encode.Encoder;
 import dev.quern.encode.Fitted;
@@ -43,6 +45,7 @@ import java.sql.SQLException;
 import java.time.Duration;
 import java.time.Instant;
 import java.time.LocalDate;
+import java.util.ArrayList;
 import java.util.HexFormat;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -66,6 +69,8 @@ public final class Quern {
     public static final String PROVENANCE = "provenance.json";
     public static final String RULES = "rules.md";
     public static final String REPORT = "report.html";
+    public static final String AUDIT_JSON = "audit.json";
+    public static final String AUDIT_MD = "audit.md";
 
     private final Recipe recipe;
     private final Path recipeFolder;
@@ -156,6 +161,7 @@ public final class Quern {
             EncodePlan encoding = Encoder.plan(recipe, compilation.plan());
             String recipeSha256 = sha256(recipe.text());
             Optional<Fitted> frozen = fitted.map(f -> Encoder.readFitted(f, encoding, recipeSha256));
+            Audit leakage = Audit.of(recipe, compilation.plan(), compilation.schema());
             progress.stage("checking the data against the recipe's rules");
             long rulesStarted = System.nanoTime();
             List<RuleOutcome> rules = RuleRunner.run(RuleQueries.of(compilation.plan()), connection);
@@ -163,23 +169,42 @@ public final class Quern {
             progress.stage("building " + MATRIX);
             RunResult run;
             Plan table = compilation.plan();
+            // The audit screens the raw matrix, whose columns are the plan's: before encoding, when there is one.
+            List<AuditReport> audited = new ArrayList<>();
+            java.util.function.Consumer<Path> audit = matrix -> {
+                progress.stage("auditing for leakage");
+                long auditStart = System.nanoTime();
+                audited.add(leakage.run(connection, matrix));
+                timings.put("audit", Duration.ofNanos(System.nanoTime() - auditStart));
+            };
             if (encoding.isEmpty() && frozen.isEmpty()) {
                 try (Writer matrix = out.open(MATRIX)) {
                     run = MatrixWriter.write(compilation.query(), connection, matrix, progress);
                 }
+                audit.accept(out.pending(MATRIX));
             } else {
                 // The encode stage: the raw matrix goes to a scratch file, then is fitted and encoded into MATRIX.
                 Encoder.Encoded encoded = Encoder.build(encoding, frozen, recipeSha256, out,
-                        raw -> MatrixWriter.write(compilation.query(), connection, raw, progress), progress);
+                        raw -> MatrixWriter.write(compilation.query(), connection, raw, progress), audit, progress);
                 run = encoded.run();
                 table = encoded.plan();
                 timings.put("encode", encoded.time());
             }
             timings.put("query", run.queryTime());
             timings.put("write", run.writeTime());
+            AuditReport leaks = audited.get(0);
+            out.write(AUDIT_JSON, leaks.json());
+            out.write(AUDIT_MD, leaks.markdown());
+            if (leaks.blocked()) {
+                // The audit is the one output of a blocked build: no matrix, and nothing that describes one.
+                out.discard(MATRIX);
+                out.discard(Encoder.FITTED);
+                out.commit();
+                throw blockedBy(leaks, folder);
+            }
             progress.stage("writing reports");
             Lineage lineage = Lineage.of(table);
-            DataDictionary dictionary = new DataDictionary(table, run, lineage);
+            DataDictionary dictionary = new DataDictionary(leaks.annotate(table), run, lineage);
             String dictionaryCsv = dictionary.csv();
             out.write(DICTIONARY_CSV, dictionaryCsv);
             out.write(DICTIONARY_MD, dictionary.markdown());
@@ -203,7 +228,7 @@ public final class Quern {
                 out.discard(MATRIX);
             }
             List<Path> files = out.commit();
-            return new BuildSummary(compilation, run, rules, files, table.columns(), drift);
+            return new BuildSummary(compilation, run, rules, files, table.columns(), drift, leaks);
         } catch (IOException e) {
             throw QuernException.output("writing to " + folder + " failed: " + e.getMessage(), e);
         } catch (SQLException e) {
@@ -213,6 +238,49 @@ public final class Quern {
         }
     }
 
+    /**
+     * Runs the leakage audit alone: builds the matrix into a temporary file (streamed, so memory stays flat;
+     * the disk holds one matrix), audits it and removes it. Writes nothing else.
+     */
+    public AuditReport audit(Progress progress) {
+        Source source = source();
+        Path temp = null;
+        try (Connection connection = source.open()) {
+            progress.stage("checking the recipe against " + source.engine().label());
+            Compilation compilation = compile(source, connection, new LinkedHashMap<>());
+            Audit leakage = Audit.of(recipe, compilation.plan(), compilation.schema());
+            progress.stage("building the matrix to audit");
+            temp = Files.createTempFile("quern-audit-", ".csv");
+            try (Writer matrix = Files.newBufferedWriter(temp, StandardCharsets.UTF_8)) {
+                MatrixWriter.write(compilation.query(), connection, matrix, progress);
+            }
+            progress.stage("auditing for leakage");
+            return leakage.run(connection, temp);
+        } catch (IOException e) {
+            throw QuernException.output("cannot write the temporary matrix to audit: " + e.getMessage(), e);
+        } catch (SQLException e) {
+            throw QuernException.data("closing the source failed: " + e.getMessage(), e);
+        } finally {
+            progress.done();
+            if (temp != null) {
+                try {
+                    Files.deleteIfExists(temp);
+                } catch (IOException e) {
+                    // A temporary file left behind is not worth failing the audit for.
+                }
+            }
+        }
+    }
+
+    /** The failure of a build the audit blocked: each open blocking finding, then where to read more. */
+    static QuernException blockedBy(AuditReport audit, Path folder) {
+        List<Diagnostic> diagnostics = new ArrayList<>(audit.blocking());
+        diagnostics.add(Diagnostic.at(Position.NONE, "the leakage audit blocked the build: " + MATRIX
+                + " was not written; see " + folder.resolve(AUDIT_MD) + ", and fix each blocking finding or"
+                + " acknowledge it under audit.acknowledge with a reason"));
+        return new QuernException(Failure.LEAKAGE, diagnostics);
+    }
+
     private Compilation compile(Source source, Connection connection, Map<String, Duration> timings) {
         long t0 = System.nanoTime();
         SourceSchema schema = new SchemaReader(connection, source.engine()).read(recipe);
@@ -220,6 +288,7 @@ public final class Quern {
         Plan planned = Planner.plan(recipe, schema);
         Plan plan = cutoffs.map(planned::withCutoffs).orElse(planned);
         Encoder.plan(recipe, plan);
+        Audit.checkAcknowledgements(recipe, plan);
         CompiledQuery query = SqlCompiler.compile(plan);
         long t2 = System.nanoTime();
         timings.put("schema", Duration.ofNanos(t1 - t0));

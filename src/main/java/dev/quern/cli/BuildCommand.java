@@ -70,6 +70,7 @@ final class BuildCommand implements Callable<Integer> {
                             : findings.size() + (findings.size() == 1 ? " finding" : " findings")
                             + " beyond the default thresholds");
         });
+        w.println("leakage audit " + built.audit().summary() + " (see " + Quern.AUDIT_MD + ")");
         return 0;
     }
 }

@@ -11,8 +11,8 @@ import picocli.CommandLine.Command;
 /** The {@code quern} command: a thin shell over {@link dev.quern.Quern}. */
 @Command(name = "quern", mixinStandardHelpOptions = true, versionProvider = Main.VersionProvider.class,
         description = "Compiles a feature recipe into SQL and builds a point-in-time modelling table.",
-        subcommands = {BuildCommand.class, CheckCommand.class, SqlCommand.class, LineageCommand.class,
-                CompareCommand.class, SampleCommand.class, LoadCommand.class,
+        subcommands = {BuildCommand.class, AuditCommand.class, CheckCommand.class, SqlCommand.class,
+                LineageCommand.class, CompareCommand.class, SampleCommand.class, LoadCommand.class,
                 CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
 
@@ -60,7 +60,7 @@ public final class Main implements Runnable {
     @Override
     public void run() {
         throw new CommandLine.ParameterException(spec.commandLine(),
-                "name a command: build, check, sql, lineage, compare, sample or load");
+                "name a command: build, audit, check, sql, lineage, compare, sample or load");
     }
 
     /** Reports the version Maven stamped into the jar. */

@@ -103,11 +103,13 @@ public final class Encoder {
 
     /**
      * Runs the stage into {@code out}: {@code rawMatrix} writes the raw matrix to the writer it is given (a
-     * scratch file in the output folder, removed afterwards); then the encodings are fitted on it, unless
+     * scratch file in the output folder, removed afterwards) and {@code rawWritten} reads it (the leakage
+     * audit screens the raw columns); then the encodings are fitted on it, unless
      * {@code frozen} holds a fit to reuse, and {@link Quern#MATRIX} and {@link #FITTED} are written.
      */
     public static Encoded build(EncodePlan plan, Optional<Fitted> frozen, String recipeSha256, OutputFolder out,
-                                Function<Writer, RunResult> rawMatrix, Progress progress) {
+                                Function<Writer, RunResult> rawMatrix, java.util.function.Consumer<Path> rawWritten,
+                                Progress progress) {
         Path scratch = null;
         try {
             scratch = Files.createTempFile(out.folder(), ".matrix.raw.", ".tmp");
@@ -115,6 +117,7 @@ public final class Encoder {
             try (Writer w = Files.newBufferedWriter(scratch, StandardCharsets.UTF_8)) {
                 raw = rawMatrix.apply(w);
             }
+            rawWritten.accept(scratch);
             long started = System.nanoTime();
             RawMatrix matrix = new RawMatrix(scratch, plan.plan().columns().stream().map(OutputColumn::name).toList());
             Fitted fitted;

@@ -63,17 +63,6 @@ public final class OutputFolder implements AutoCloseable {
         }
     }
 
-    /** Drops a pending output: it is removed now and never committed (the CSV a Parquet matrix came from). */
-    public void discard(String name) {
-        Path temp = pending(name);
-        pending.remove(name);
-        try {
-            Files.deleteIfExists(temp);
-        } catch (IOException e) {
-            throw QuernException.output("cannot remove the temporary file " + temp + ": " + e.getMessage(), e);
-        }
-    }
-
     /** Writes a whole text output. */
     public void write(String name, String text) {
         try (Writer w = open(name)) {
@@ -85,7 +74,7 @@ public final class OutputFolder implements AutoCloseable {
 
     /**
      * The temporary file that holds {@code name} until commit, to read back an output already written and
-     * closed (the build compares its new matrix with an earlier one before anything is renamed).
+     * closed (the leakage audit reads the matrix; the build compares it with an earlier one).
      */
     public Path pending(String name) {
         Path temp = pending.get(name);
@@ -93,6 +82,19 @@ public final class OutputFolder implements AutoCloseable {
             throw new IllegalStateException(name + " is not a pending output of " + folder);
         }
         return temp;
+    }
+
+    /** Drops a pending output: its temporary file is removed and it is not committed. */
+    public void discard(String name) {
+        Path temp = pending.remove(name);
+        if (temp == null) {
+            return;
+        }
+        try {
+            Files.deleteIfExists(temp);
+        } catch (IOException e) {
+            throw QuernException.output("cannot remove the temporary file " + temp + ": " + e.getMessage(), e);
+        }
     }
 
     /** Moves every pending file to its final name; returns the final paths in the order written. */

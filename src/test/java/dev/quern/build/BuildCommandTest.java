@@ -43,8 +43,8 @@ class BuildCommandTest {
 
         assertArrayEquals(before, sha256(SAMPLE), "the source's bytes");
         assertEquals(modified, Files.getLastModifiedTime(SAMPLE).toMillis(), "the source's modification time");
-        assertEquals(List.of("dictionary.csv", "dictionary.md", "matrix.csv", "provenance.json", "report.html",
-                "rules.md"), names(target));
+        assertEquals(List.of("audit.json", "audit.md", "dictionary.csv", "dictionary.md", "matrix.csv",
+                "provenance.json", "report.html", "rules.md"), names(target));
         List<String> matrix = Files.readAllLines(target.resolve("matrix.csv"));
         assertTrue(matrix.get(0).startsWith("member_id,cutoff,rides_count_30d,"), matrix.get(0));
         assertTrue(matrix.get(0).endsWith(",cancels_in_60d"), matrix.get(0));

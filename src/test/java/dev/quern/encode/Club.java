@@ -36,6 +36,11 @@ final class Club {
                 name: tier
               - lookup: members.fee
                 name: fee
+            audit:
+              acknowledge:
+                - { check: current-state, column: zone, reason: "test data: a member's zone is set when it joins" }
+                - { check: current-state, column: tier, reason: "test data: a member's tier is set when it joins" }
+                - { check: current-state, column: fee, reason: "test data: a member's fee is set when it joins" }
             """;
 
     final List<List<Object>> members = new ArrayList<>();

@@ -34,13 +34,13 @@ class EncodeRecipeErrorsTest {
     void unknownKindsAndOptionsSuggestTheClosest() {
         // Options are placed at their value: the parser keeps the value's position, not the key's.
         assertEquals("""
-                club.yaml:20:9: unknown encoding 'one_hot' (did you mean one-hot?); the encodings are one-hot, \
+                club.yaml:25:9: unknown encoding 'one_hot' (did you mean one-hot?); the encodings are one-hot, \
                 frequency, target-mean, bins, log1p, standardise, missing, impute
-                club.yaml:21:27: one-hot has no option 'tpo' (did you mean top?); its options: top
-                club.yaml:22:9: unknown encoding 'standardize' (did you mean standardise?); the encodings are \
+                club.yaml:26:27: one-hot has no option 'tpo' (did you mean top?); its options: top
+                club.yaml:27:9: unknown encoding 'standardize' (did you mean standardise?); the encodings are \
                 one-hot, frequency, target-mean, bins, log1p, standardise, missing, impute
-                club.yaml:23:29: log1p takes no options
-                club.yaml:24:31: impute with 'medain': write mean, median or a number (did you mean median?)""",
+                club.yaml:28:29: log1p takes no options
+                club.yaml:29:31: impute with 'medain': write mean, median or a number (did you mean median?)""",
                 errors("""
                         encode:
                           zone: one_hot
@@ -54,10 +54,10 @@ class EncodeRecipeErrorsTest {
     @Test
     void optionValuesAreChecked() {
         assertEquals("""
-                club.yaml:20:20: top must be a whole number of at least 1, not '0'
-                club.yaml:21:29: m must be a number of at least 0 (the weight of the prior, in rows), not '-1'
-                club.yaml:22:16: count must be a whole number of at least 2, not 'many'
-                club.yaml:23:30: impute needs a value to fill with: {impute: median}, {impute: mean} or {impute: 0}""",
+                club.yaml:25:20: top must be a whole number of at least 1, not '0'
+                club.yaml:26:29: m must be a number of at least 0 (the weight of the prior, in rows), not '-1'
+                club.yaml:27:16: count must be a whole number of at least 2, not 'many'
+                club.yaml:28:30: impute needs a value to fill with: {impute: median}, {impute: mean} or {impute: 0}""",
                 errors("""
                         encode:
                           zone: { one-hot: 0 }
@@ -70,10 +70,10 @@ class EncodeRecipeErrorsTest {
     @Test
     void keysTheCutoffTheLabelAndUnknownColumnsAreNotEncoded() {
         assertEquals("""
-                club.yaml:20:3: member_id is the entity key: keys identify rows and are never encoded
-                club.yaml:21:3: the cutoff dates rows and is never encoded
-                club.yaml:22:3: complains_in_30d is the label: encoding it would hand the model its answer
-                club.yaml:23:3: there is no output column 'zones' to encode (did you mean zone?)""",
+                club.yaml:25:3: member_id is the entity key: keys identify rows and are never encoded
+                club.yaml:26:3: the cutoff dates rows and is never encoded
+                club.yaml:27:3: complains_in_30d is the label: encoding it would hand the model its answer
+                club.yaml:28:3: there is no output column 'zones' to encode (did you mean zone?)""",
                 errors("""
                         encode:
                           member_id: one-hot
@@ -86,15 +86,15 @@ class EncodeRecipeErrorsTest {
     @Test
     void numberStepsNeedNumbersAndChainsMustMakeSense() {
         assertEquals("""
-                club.yaml:20:10: standardise needs a number column, but zone holds text
-                club.yaml:21:10: one-hot reads the value as a level and must be the only encoding of tier (it has a \
+                club.yaml:25:10: standardise needs a number column, but zone holds text
+                club.yaml:26:10: one-hot reads the value as a level and must be the only encoding of tier (it has a \
                 missing column of its own)
-                club.yaml:22:11: bins must be the last step: it turns the value into a bin number
-                club.yaml:23:36: missing after impute would always be 0: put missing before impute
-                club.yaml:24:35: log1p after standardise: standardised values are often below -1, where log1p is \
+                club.yaml:27:11: bins must be the last step: it turns the value into a bin number
+                club.yaml:28:36: missing after impute would always be 0: put missing before impute
+                club.yaml:29:35: log1p after standardise: standardised values are often below -1, where log1p is \
                 undefined; put log1p first
-                club.yaml:24:42: log1p appears twice in the encoding of rides_sum_km_30d
-                club.yaml:24:42: log1p after standardise: standardised values are often below -1, where log1p is \
+                club.yaml:29:42: log1p appears twice in the encoding of rides_sum_km_30d
+                club.yaml:29:42: log1p after standardise: standardised values are often below -1, where log1p is \
                 undefined; put log1p first""",
                 errors("""
                         encode:
@@ -112,7 +112,7 @@ class EncodeRecipeErrorsTest {
                 "label: { name: complains_in_30d, from: complaints, horizon: 30d, value: exists }\n", "");
         QuernException e = assertThrows(QuernException.class, () -> Club.recipe(folder, withoutLabel
                 + "encode:\n  zone: target-mean\n").compile());
-        assertEquals("club.yaml:19:9: target-mean needs a label: the recipe has none", e.getMessage());
+        assertEquals("club.yaml:24:9: target-mean needs a label: the recipe has none", e.getMessage());
     }
 
     @Test
@@ -125,7 +125,7 @@ class EncodeRecipeErrorsTest {
                   train: { to: 2025-03-31 }
                   test: { from: 2025-04-30 }
                 """).compile());
-        assertEquals("club.yaml:21:9: the test part starts at cutoff 2025-04-30, but the labels of the training "
+        assertEquals("club.yaml:26:9: the test part starts at cutoff 2025-04-30, but the labels of the training "
                 + "cutoff 2025-03-31 run to 2025-05-30: leave at least the label's 60d horizon between the last "
                 + "training cutoff and the first test cutoff (end train by 2025-02-28, or start test later)",
                 e.getMessage());
@@ -144,8 +144,8 @@ class EncodeRecipeErrorsTest {
     @Test
     void splitPartsMustHoldCutoffsAndNotOverlap() {
         assertEquals("""
-                club.yaml:21:15: no cutoff of the recipe falls in the validation part (2026-01-01 to the last cutoff)
-                club.yaml:22:9: cutoff 2025-02-28 falls in both the train and the test part: parts must not overlap""",
+                club.yaml:26:15: no cutoff of the recipe falls in the validation part (2026-01-01 to the last cutoff)
+                club.yaml:27:9: cutoff 2025-02-28 falls in both the train and the test part: parts must not overlap""",
                 errors("""
                         split:
                           train: { to: 2025-02-28 }

@@ -70,8 +70,9 @@ class SampleEncodingTest {
         for (Map<String, String> row : training.rows()) {
             LocalDate cutoff = LocalDate.parse(row.get("cutoff"));
             String expected = !cutoff.isAfter(LocalDate.parse("2025-04-30")) ? "train"
-                    : !cutoff.isAfter(LocalDate.parse("2025-06-30")) ? "validation"
-                    : cutoff.isBefore(LocalDate.parse("2025-08-31")) || cutoff.isAfter(LocalDate.parse("2025-10-31"))
+                    : cutoff.isBefore(LocalDate.parse("2025-06-30")) ? ""
+                    : !cutoff.isAfter(LocalDate.parse("2025-07-31")) ? "validation"
+                    : cutoff.isBefore(LocalDate.parse("2025-09-30")) || cutoff.isAfter(LocalDate.parse("2025-10-31"))
                     ? "" : "test";
             assertEquals(expected, row.get("split"), row.get("cutoff"));
         }

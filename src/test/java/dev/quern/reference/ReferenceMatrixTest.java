@@ -158,6 +158,12 @@ class ReferenceMatrixTest {
               - lookup: notes.mood
                 name: last_mood
               - lookup: customers.name
+            audit:
+              acknowledge:
+                - { check: current-state, column: visits_shops_distinct_region_1y, reason: "test data: fixed" }
+                - { check: current-state, column: visits_shops_min_region_1y, reason: "test data: fixed" }
+                - { check: current-state, column: visits_shops_max_opened_on_1y, reason: "test data: fixed" }
+                - { check: current-state, column: customers_name, reason: "test data: fixed" }
             """;
 
     /** Builds one variant of the edge recipe and recomputes it with the evaluator. */

@@ -49,7 +49,7 @@ class LineageTest {
     @Test
     void aMeasureGoesFromItsTableThroughItsJoinsAndWindow() {
         assertEquals("""
-                start_station_distinct_zone_90d (feature, integer, defined at recipes/member-churn.yaml:64)
+                start_station_distinct_zone_90d (feature, integer, defined at recipes/member-churn.yaml:67)
                   table    rides
                   join     rides.member_id = members.member_id
                            ties each row to the entity
@@ -65,7 +65,7 @@ class LineageTest {
     @Test
     void lookupsSayHowTheyAreTiedToTheCutoff() {
         assertEquals("""
-                plan (feature, text, defined at recipes/member-churn.yaml:84)
+                plan (feature, text, defined at recipes/member-churn.yaml:87)
                   table    plans
                   join     plans.member_id = members.member_id
                            ties each row to the entity
@@ -74,7 +74,7 @@ class LineageTest {
                 empty or not before it; the latest valid_from wins, then the highest key
                   value    plans.plan
 
-                home_zone (feature, text, defined at recipes/member-churn.yaml:88)
+                home_zone (feature, text, defined at recipes/member-churn.yaml:91)
                   table    members
                   as_of    current value (no history)
                            the value as the source holds it now: members keeps no history of it, so it may \
@@ -98,7 +98,7 @@ class LineageTest {
         String dictionary = new DataDictionary(plan, emptyRun()).csv();
         assertTrue(dictionary.lines().findFirst().orElseThrow().contains(",defined_at,lineage,empty_share,"),
                 dictionary.lines().findFirst().orElseThrow());
-        assertTrue(dictionary.contains(",recipes/member-churn.yaml:61,rides > join rides.member_id = "
+        assertTrue(dictionary.contains(",recipes/member-churn.yaml:64,rides > join rides.member_id = "
                 + "members.member_id > where rule: rides rows must meet distance_km / (duration_min / 60.0) <= 45 (faster than any e-bike: the bike was on a train or in a car) > window 30d on rides.started_at > count,"), dictionary);
     }
 
@@ -111,7 +111,7 @@ class LineageTest {
                 fed.stream().map(f -> f.column().column()).toList());
         assertEquals("""
                 stations.zone feeds 1 column:
-                  start_station_distinct_zone_90d  value       recipes/member-churn.yaml:64
+                  start_station_distinct_zone_90d  value       recipes/member-churn.yaml:67
                 """, Lineage.text("stations.zone", lineage.fedBy("stations.zone")));
         assertEquals(List.of(LineageStep.How.TIME), lineage.fedBy("plans.valid_to").get(0).uses());
         assertEquals(19, lineage.fedBy("rides").size(), "a table feeds every column that reads any of it");
@@ -142,7 +142,7 @@ class LineageTest {
         assertEquals(1, columns.size());
         Map<String, Object> c = columns.get(0);
         assertEquals("rides_mean_duration_min_90d", c.get("column"));
-        assertEquals("recipes/member-churn.yaml:61", c.get("defined_at"));
+        assertEquals("recipes/member-churn.yaml:64", c.get("defined_at"));
         assertEquals(List.of("rides.member_id", "members.member_id", "rides.started_at", "rides.duration_min"),
                 c.get("sources"));
         List<Map<String, Object>> steps = (List<Map<String, Object>>) c.get("steps");

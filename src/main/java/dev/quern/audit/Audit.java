@@ -1,0 +1,158 @@
+package dev.quern.audit;
+
+import dev.quern.Diagnostics;
+import dev.quern.Failure;
+import dev.quern.Suggestions;
+import dev.quern.plan.OutputColumn;
+import dev.quern.plan.Plan;
+import dev.quern.recipe.Acknowledgement;
+import dev.quern.recipe.Recipe;
+import dev.quern.schema.SourceSchema;
+import java.nio.file.Path;
+import java.sql.Connection;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HashSet;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Set;
+
+/**
+ * The leakage audit: checks that no column of a built matrix can see past its cutoff, and reports what it
+ * finds with the evidence.
+ *
+ * <p>It reads the source with queries of its own (never the compiled feature query) and the matrix as
+ * written, before the build commits it. {@link #of} checks the recipe's acknowledgements at once, so that a
+ * misspelt one stops the build before the query runs; {@link #run} does the checks.
+ *
+ * <pre>{@code
+ * AuditReport report = Audit.of(recipe, plan, schema).run(connection, matrixFile);
+ * if (report.blocked()) { ... write report.markdown(), no matrix ... }
+ * }</pre>
+ */
+public final class Audit {
+
+    /** The screen flags an AUC at or above this, or at or below one minus it, unless the recipe says otherwise. */
+    public static final double DEFAULT_AUC = 0.95;
+    /** The screen flags |Spearman's rho| at or above this, unless the recipe says otherwise. */
+    public static final double DEFAULT_RHO = 0.95;
+
+    private final Recipe recipe;
+    private final Plan plan;
+    private final SourceSchema schema;
+    private final Boundaries boundaries;
+    private final long memory;
+
+    private Audit(Recipe recipe, Plan plan, SourceSchema schema, Boundaries boundaries, long memory) {
+        this.recipe = recipe;
+        this.plan = plan;
+        this.schema = schema;
+        this.boundaries = boundaries;
+        this.memory = memory;
+    }
+
+    /** The audit of one compiled recipe; stops with a recipe error if an acknowledgement names no check or column. */
+    public static Audit of(Recipe recipe, Plan plan, SourceSchema schema) {
+        checkAcknowledgements(recipe, plan);
+        return new Audit(recipe, plan, schema, Boundaries.PLAN, MatrixScan.BUDGET_BYTES);
+    }
+
+    /** The same audit restating the windows with other boundaries: the seam tests plant a faulty window with. */
+    Audit withBoundaries(Boundaries other) {
+        return new Audit(recipe, plan, schema, other, memory);
+    }
+
+    /** The same audit with another memory budget for the screen's values. */
+    Audit withMemory(long bytes) {
+        return new Audit(recipe, plan, schema, boundaries, bytes);
+    }
+
+    /**
+     * Runs every check. {@code connection} is the read-only source; {@code matrix} the matrix as written (CSV,
+     * the plan's columns in order), read back streaming.
+     */
+    public AuditReport run(Connection connection, Path matrix) {
+        Results results = new Results();
+        new SourceChecks(recipe, plan, new SourceRows(recipe, plan, schema, boundaries).count(connection), results)
+                .run();
+        PlanChecks planChecks = new PlanChecks(recipe, plan, boundaries, results);
+        planChecks.horizon();
+        EntitySince since = EntitySince.read(plan.cohort(), connection, plan.engine());
+        MatrixScan scan = new MatrixScan(matrix, plan.columns(), since, memory);
+        MatrixScan.First first = scan.first();
+        double auc = recipe.audit().auc().orElse(DEFAULT_AUC);
+        double rho = recipe.audit().rho().orElse(DEFAULT_RHO);
+        MatrixChecks matrixChecks = new MatrixChecks(plan, auc, rho, results);
+        matrixChecks.screen(plan.label().map(l -> scan.screen(first)));
+        matrixChecks.cohort(first.cohort(), since.applies());
+        planChecks.timeSplit(first.cohort().labelledPerCutoff());
+        planChecks.sensitive();
+        List<CheckResult> checks = new ArrayList<>(results.checks);
+        checks.sort(Comparator.comparing(CheckResult::check));
+        List<Finding> findings = new ArrayList<>(results.findings);
+        findings.sort(Comparator.comparing(Finding::check));
+        return new AuditReport(plan.recipeName(), auc, rho, checks, acknowledge(findings));
+    }
+
+    /**
+     * Marks each finding whose every column the recipe acknowledges for its check; an acknowledgement that
+     * matches no finding becomes a note, so that stale ones come to light.
+     */
+    private List<Finding> acknowledge(List<Finding> findings) {
+        Map<String, Acknowledgement> byKey = new LinkedHashMap<>();
+        for (Acknowledgement a : recipe.audit().acknowledgements()) {
+            byKey.put(a.check().text() + "/" + a.column().text(), a);
+        }
+        Set<String> used = new HashSet<>();
+        List<Finding> out = new ArrayList<>();
+        for (Finding f : findings) {
+            List<Acknowledgement> acks = new ArrayList<>();
+            for (String column : f.columns()) {
+                Optional.ofNullable(byKey.get(f.check().id() + "/" + column)).ifPresent(acks::add);
+            }
+            if (!f.columns().isEmpty() && acks.size() == f.columns().size()) {
+                acks.forEach(a -> used.add(a.check().text() + "/" + a.column().text()));
+                String reason = String.join(" / ", acks.stream().map(Acknowledgement::reason).distinct().toList());
+                out.add(f.acknowledge(new Finding.Acknowledged(reason, acks.get(0).position())));
+            } else {
+                out.add(f);
+            }
+        }
+        for (Map.Entry<String, Acknowledgement> e : byKey.entrySet()) {
+            if (!used.contains(e.getKey())) {
+                Acknowledgement a = e.getValue();
+                Check check = Check.byId(a.check().text()).orElseThrow();
+                out.add(Finding.of(check, Severity.NOTE, List.of(a.column().text()),
+                        "The recipe acknowledges " + check.id() + " for " + a.column().text() + " (at " + a.position()
+                                + "), but the audit found nothing of that kind there.",
+                        Map.of(), List.of(), "Remove the acknowledgement, or check that it names the right column.",
+                        a.position()));
+            }
+        }
+        out.sort(Comparator.comparing(Finding::check));
+        return out;
+    }
+
+    /**
+     * Stops with a recipe error for each acknowledgement that names a check the audit does not have, or a
+     * column the plan does not build: a misspelt acknowledgement would otherwise silently acknowledge nothing.
+     */
+    public static void checkAcknowledgements(Recipe recipe, Plan plan) {
+        Diagnostics problems = new Diagnostics();
+        List<String> columns = plan.columns().stream().map(OutputColumn::name).toList();
+        for (Acknowledgement a : recipe.audit().acknowledgements()) {
+            if (Check.byId(a.check().text()).isEmpty()) {
+                problems.error(a.check().position(), "the audit has no check '" + a.check().text() + "'"
+                        + Suggestions.hint(a.check().text(), Check.ids()) + "; its checks are "
+                        + String.join(", ", Check.ids()));
+            }
+            if (!columns.contains(a.column().text())) {
+                problems.error(a.column().position(), "the recipe builds no column '" + a.column().text()
+                        + "' to acknowledge" + Suggestions.hint(a.column().text(), columns));
+            }
+        }
+        problems.throwIfAny(Failure.RECIPE);
+    }
+}
