@@ -5,13 +5,9 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import dev.quern.Quern;
 import dev.quern.recipe.RecipeReader;
 import dev.quern.testing.Matrix;
-import dev.quern.testing.TestDatabase;
+import dev.quern.testing.NistDatabase;
 import java.io.IOException;
-import java.io.InputStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
-import java.util.ArrayList;
-import java.util.List;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -33,18 +29,7 @@ class NistStddevTest {
 
     @BeforeAll
     static void build() throws IOException {
-        List<List<Object>> sensors = new ArrayList<>();
-        List<List<Object>> readings = new ArrayList<>();
-        addDataSet(1, List.of(10000001.0, 10000003.0, 10000002.0), sensors, readings);
-        addDataSet(2, pairs(1.2, 1.1, 1.3), sensors, readings);
-        addDataSet(3, pairs(1000000.2, 1000000.1, 1000000.3), sensors, readings);
-        addDataSet(4, pairs(10000000.2, 10000000.1, 10000000.3), sensors, readings);
-        addDataSet(5, michelsoValues(), sensors, readings);
-        try (TestDatabase db = TestDatabase.create(folder.resolve("nist.sqlite"))) {
-            db.execute("create table sensors (sensor_id integer primary key, installed_on text)",
-                    "create table readings (reading_id integer primary key, sensor_id integer, taken_at text, value real)");
-            db.insert("sensors", sensors).insert("readings", readings);
-        }
+        NistDatabase.write(folder.resolve("nist.sqlite"));
         String recipe = """
                 recipe: nist
                 source: jdbc:sqlite:nist.sqlite
@@ -93,33 +78,5 @@ class NistStddevTest {
         double sd = Double.parseDouble(row.get("readings_stddev_value_365d"));
         assertEquals(certifiedMean, mean, Math.abs(certifiedMean) * 1e-12, "mean of data set " + sensor);
         assertEquals(certifiedSd, sd, certifiedSd * relative, "sample standard deviation of data set " + sensor);
-    }
-
-    /** The first value, then 500 times the pair: the NumAcc2-4 layout. */
-    private static List<Double> pairs(double first, double low, double high) {
-        List<Double> values = new ArrayList<>();
-        values.add(first);
-        for (int i = 0; i < 500; i++) {
-            values.add(low);
-            values.add(high);
-        }
-        return values;
-    }
-
-    private static List<Double> michelsoValues() throws IOException {
-        try (InputStream in = NistStddevTest.class.getResourceAsStream("/reference/nist-strd-michelso.txt")) {
-            return new String(in.readAllBytes(), StandardCharsets.UTF_8).lines()
-                    .filter(l -> !l.isBlank() && !l.startsWith("#")).map(Double::parseDouble).toList();
-        }
-    }
-
-    private static void addDataSet(int sensor, List<Double> values, List<List<Object>> sensors,
-                                   List<List<Object>> readings) {
-        sensors.add(List.of(sensor, "2024-01-01"));
-        for (int i = 0; i < values.size(); i++) {
-            // Spread over distinct seconds of one day inside the window: order does not change the result.
-            String time = String.format("2025-01-15 %02d:%02d:%02d", i / 3600, (i / 60) % 60, i % 60);
-            readings.add(List.of(sensor * 10000 + i, sensor, time, values.get(i)));
-        }
     }
 }
