@@ -211,7 +211,8 @@ public final class Quern {
             String dictionaryCsv = dictionary.csv();
             out.write(DICTIONARY_CSV, dictionaryCsv);
             out.write(DICTIONARY_MD, dictionary.markdown());
-            out.write(RULES, RulesReport.markdown(recipe.name().text(), rules, compilation.schema(), eventTimes(), late,
+            out.write(RULES, RulesReport.markdown(recipe.name().text(), rules, compilation.schema(),
+                    recipe.eventTimes(), late,
                     lateQueries.stream().map(LateRows.Query::from).findFirst()));
             String provenance = Provenance.render(table, compilation.schema(), run, rules,
                     new Provenance.Facts(recipe.file(), recipeSha256, Version.current(), source.display(),
@@ -298,13 +299,6 @@ public final class Quern {
         timings.put("schema", Duration.ofNanos(t1 - t0));
         timings.put("compile", Duration.ofNanos(t2 - t1));
         return new Compilation(recipe, source, schema, plan, query);
-    }
-
-    /** The {@code table.column} of every event time the recipe declares. */
-    private java.util.Set<String> eventTimes() {
-        java.util.Set<String> out = new java.util.LinkedHashSet<>();
-        recipe.tables().values().forEach(t -> t.time().ifPresent(c -> out.add(t.name().text() + "." + c.text())));
-        return out;
     }
 
     static String sha256(String text) {

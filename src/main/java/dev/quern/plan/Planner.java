@@ -224,10 +224,8 @@ public final class Planner {
         ValueType type = spec.kind() == LabelSpec.Kind.SUM ? input.get().type() : ValueType.INTEGER;
         Optional<CheckedExpression> filter = spec.where().flatMap(w -> Expressions.compile(w.text(), w.start(),
                 scopes.path(path.get()), Expect.CONDITION, problems));
-        List<String> eventTimes = recipe.tables().values().stream().filter(t -> t.time().isPresent())
-                .map(t -> t.name().text() + "." + t.time().get().text()).toList();
         LabelPlan label = new LabelPlan(spec.name().text(), path.get(), spec.gap(), spec.horizon(), spec.kind(),
-                input, filter, type, schema.latestOf(eventTimes));
+                input, filter, type, schema.latestOf(recipe.eventTimes()));
         name(label.column(), spec.name().position());
         columns.add(Describe.label(label, filterNote(path.get(), filter), spec.position()));
         return Optional.of(label);

@@ -53,6 +53,13 @@ public record Recipe(
                 Optional.empty(), AuditSpec.DEFAULT);
     }
 
+    /** Every event time the recipe declares, as {@code table.column}, in declaration order. */
+    public java.util.Set<String> eventTimes() {
+        java.util.Set<String> out = new java.util.LinkedHashSet<>();
+        tables.values().forEach(t -> t.time().ifPresent(c -> out.add(t.name().text() + "." + c.text())));
+        return out;
+    }
+
     public Optional<TableSpec> table(String name) {
         return Optional.ofNullable(tables.get(name));
     }

@@ -4,7 +4,6 @@ import dev.quern.schema.Engine;
 import dev.quern.schema.TimeStorage;
 import org.jooq.Field;
 import org.jooq.impl.DSL;
-import org.jooq.impl.SQLDataType;
 
 /** SQLite: dates are text, and there is no standard deviation aggregate at all. */
 final class SqliteSql extends EngineSql {
@@ -42,9 +41,5 @@ final class SqliteSql extends EngineSql {
     @Override
     Field<Object> dayOf(Field<Object> time, TimeStorage storage) {
         return DSL.substring(time.coerce(String.class), 1, 10).coerce(Object.class);
-    }
-
-    static Field<Object> real(Field<Object> f) {
-        return f.cast(SQLDataType.DOUBLE).coerce(Object.class);
     }
 }
