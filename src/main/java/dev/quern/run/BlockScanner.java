@@ -3,7 +3,6 @@ package dev.quern.run;
 import dev.quern.plan.Aggregate;
 import dev.quern.plan.Block;
 import dev.quern.plan.Boundary;
-import dev.quern.recipe.Span;
 import dev.quern.sql.BlockScan;
 import java.sql.ResultSet;
 import java.sql.SQLException;
@@ -25,6 +24,8 @@ final class BlockScanner implements AutoCloseable {
     private final List<Aggregate> aggregates;
     private final int inputs;
     private final int[] aggregateInput;
+    private final java.util.Map<LocalDate, int[]> boundaries = new java.util.HashMap<>();
+    private static final Object[] NONE = new Object[0];
 
     /** The current entity: its key and its rows' days and inputs, in day order. */
     private Object key;
@@ -62,16 +63,24 @@ final class BlockScanner implements AutoCloseable {
     void measure(Object entity, LocalDate cutoff, Object[] out, int[] offsets) throws SQLException {
         advanceTo(entity);
         boolean has = key != null && KeyOrder.INSTANCE.compare(key, entity) == 0;
-        int until = Days.of(new Boundary.CutoffEnd().at(cutoff));
-        int to = has ? lowerBound(until) : 0;
-        Object[] none = new Object[0];
+        int[] bounds = boundaries.computeIfAbsent(cutoff, this::boundaries);
+        int to = has ? lowerBound(bounds[aggregates.size()]) : 0;
         for (int i = 0; i < aggregates.size(); i++) {
             Aggregate a = aggregates.get(i);
-            Span window = a.window();
-            int from = has ? lowerBound(Days.of(new Boundary.WindowStart(window).at(cutoff))) : 0;
-            Object[] input = aggregateInput[i] >= 0 ? values[aggregateInput[i]] : none;
+            int from = has ? lowerBound(bounds[i]) : 0;
+            Object[] input = aggregateInput[i] >= 0 ? values[aggregateInput[i]] : NONE;
             out[offsets[i]] = Measures.of(a.kind(), input, days, from, Math.max(from, to), cutoff, a.column());
         }
+    }
+
+    /** Each aggregate's window start at {@code cutoff}, then the end of the cutoff day, as {@link Days} numbers. */
+    private int[] boundaries(LocalDate cutoff) {
+        int[] out = new int[aggregates.size() + 1];
+        for (int i = 0; i < aggregates.size(); i++) {
+            out[i] = Days.of(new Boundary.WindowStart(aggregates.get(i).window()).at(cutoff));
+        }
+        out[aggregates.size()] = Days.of(new Boundary.CutoffEnd().at(cutoff));
+        return out;
     }
 
     /** Reads entities until the current one is {@code entity} or after it. */
