@@ -1,5 +1,6 @@
 package dev.quern.run;
 
+import dev.quern.QuernException;
 import dev.quern.plan.Aggregate;
 import dev.quern.plan.Block;
 import dev.quern.plan.Boundary;
@@ -83,6 +84,12 @@ final class BlockScanner implements AutoCloseable {
         return out;
     }
 
+    /** A stream the engine ordered otherwise than the merge expects: the range join does not depend on order. */
+    static QuernException outOfOrder(String what, Object previous, Object next) {
+        return QuernException.data(what + " came back with key " + next + " after " + previous + ", not in the"
+                + " order the ordered scan merges by (numbers, then text by code point); build with --shape range-join");
+    }
+
     /** Reads entities until the current one is {@code entity} or after it. */
     private void advanceTo(Object entity) throws SQLException {
         while (key == null || KeyOrder.INSTANCE.compare(key, entity) < 0) {
@@ -101,8 +108,7 @@ final class BlockScanner implements AutoCloseable {
         Object previous = key;
         key = ValueFormat.read(rows, 1, types[0]);
         if (previous != null && KeyOrder.INSTANCE.compare(previous, key) >= 0) {
-            throw new IllegalStateException("the scan of " + scan.block().path().text()
-                    + " did not come in key order: " + previous + " then " + key);
+            throw outOfOrder("the scan of " + scan.block().path().text(), previous, key);
         }
         size = 0;
         boolean sorted = true;

@@ -1,17 +1,13 @@
 package dev.quern.run;
 
-import dev.quern.QuernException;
-import dev.quern.plan.Block;
 import dev.quern.plan.Cutoff;
 import dev.quern.plan.DerivedColumn;
 import dev.quern.plan.OutputColumn;
 import dev.quern.plan.Plan;
 import dev.quern.plan.Role;
 import dev.quern.expr.Evaluator;
-import dev.quern.schema.Engine;
 import dev.quern.sql.BlockScan;
 import dev.quern.sql.CompiledQuery;
-import dev.quern.run.ValueFormat;
 import dev.quern.schema.ValueType;
 import java.io.IOException;
 import java.sql.Connection;
@@ -82,11 +78,16 @@ final class ScannedRows {
             try (ResultSet rs = main.executeQuery(query.sql())) {
                 int[] types = ValueFormat.readTypes(rs.getMetaData(), plan.engine());
                 long rows = 0;
+                Object previous = null;
                 while (rs.next()) {
                     Object[] row = new Object[columns.size()];
                     for (int i = 0; i < fromQuery.length; i++) {
                         row[fromQuery[i]] = ValueFormat.read(rs, i + 1, types[i]);
                     }
+                    if (previous != null && KeyOrder.INSTANCE.compare(previous, row[keyAt]) > 0) {
+                        throw BlockScanner.outOfOrder("the main query", previous, row[keyAt]);
+                    }
+                    previous = row[keyAt];
                     String cutoffText = ValueFormat.format(row[cutoffAt], ValueType.DATE);
                     Integer c = cutoffIndex.get(cutoffText);
                     if (c == null) {
@@ -133,10 +134,5 @@ final class ScannedRows {
             }
         }
         throw new IllegalStateException("no " + role + " column");
-    }
-
-    /** Blocks this run computes by scanning, for messages. */
-    List<Block> blocks() {
-        return query.scans().stream().map(BlockScan::block).toList();
     }
 }

@@ -3,6 +3,7 @@ package dev.quern.sql;
 import dev.quern.plan.Block;
 import dev.quern.plan.ColumnRef;
 import dev.quern.plan.Plan;
+import dev.quern.schema.Engine;
 import dev.quern.schema.ValueType;
 import java.util.List;
 import java.util.Optional;
