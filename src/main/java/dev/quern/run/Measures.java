@@ -71,6 +71,15 @@ final class Measures {
     }
 
     private static Object mean(Object[] values, int from, int to) {
+        Total total = total(values, from, to);
+        return total.n == 0 ? null : total.sum / total.n;
+    }
+
+    /** The compensated sum of the values present, and how many there are. */
+    private record Total(double sum, long n) {
+    }
+
+    private static Total total(Object[] values, int from, int to) {
         CompensatedSum sum = new CompensatedSum();
         long n = 0;
         for (int i = from; i < to; i++) {
@@ -79,23 +88,17 @@ final class Measures {
                 n++;
             }
         }
-        return n == 0 ? null : sum.value() / n;
+        return new Total(sum.value(), n);
     }
 
     /** The sample standard deviation in two passes (deviations from the mean), which NIST's hard cases need. */
     private static Object stddev(Object[] values, int from, int to) {
-        CompensatedSum sum = new CompensatedSum();
-        long n = 0;
-        for (int i = from; i < to; i++) {
-            if (values[i] != null) {
-                sum.add(((Number) values[i]).doubleValue());
-                n++;
-            }
-        }
+        Total total = total(values, from, to);
+        long n = total.n;
         if (n < 2) {
             return null;
         }
-        double mean = sum.value() / n;
+        double mean = total.sum / n;
         CompensatedSum squares = new CompensatedSum();
         for (int i = from; i < to; i++) {
             if (values[i] != null) {
