@@ -46,7 +46,8 @@ public final class MatrixWriter {
             connection.setAutoCommit(false);
             try (CSVPrinter csv = new CSVPrinter(out, FORMAT)) {
                 csv.printRecord(query.plan().columns().stream().map(OutputColumn::name).toList());
-                Rows rows = new Rows(columns, csv, progress);
+                // With scans, the merge counts the rows; writing them out after it is quick and says nothing.
+                Rows rows = new Rows(columns, csv, query.scanned() ? Progress.SILENT : progress);
                 if (query.scanned()) {
                     new ScannedRows(query).run(connection, progress, () -> firstRow[0] = System.nanoTime(), rows);
                 } else {
