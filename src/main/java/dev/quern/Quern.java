@@ -31,6 +31,7 @@ import dev.quern.run.RunResult;
 import dev.quern.schema.SchemaReader;
 import dev.quern.schema.Source;
 import dev.quern.schema.SourceSchema;
+import dev.quern.sql.BlockShape;
 import dev.quern.sql.CompiledQuery;
 import dev.quern.sql.SqlCompiler;
 import java.io.IOException;
@@ -78,18 +79,20 @@ public final class Quern {
     private final Optional<List<LocalDate>> cutoffs;
     private final Optional<Path> fitted;
     private final MatrixFormat format;
+    private final Optional<BlockShape> shape;
 
     private Quern(Recipe recipe, Path recipeFolder) {
-        this(recipe, recipeFolder, Optional.empty(), Optional.empty(), MatrixFormat.CSV);
+        this(recipe, recipeFolder, Optional.empty(), Optional.empty(), MatrixFormat.CSV, Optional.empty());
     }
 
     private Quern(Recipe recipe, Path recipeFolder, Optional<List<LocalDate>> cutoffs, Optional<Path> fitted,
-                  MatrixFormat format) {
+                  MatrixFormat format, Optional<BlockShape> shape) {
         this.recipe = recipe;
         this.recipeFolder = recipeFolder;
         this.cutoffs = cutoffs;
         this.fitted = fitted;
         this.format = format;
+        this.shape = shape;
     }
 
     /** Reads and parses a recipe file; relative SQLite paths in it are read from the file's folder. */
@@ -105,22 +108,31 @@ public final class Quern {
 
     /** The same recipe reading another source (a JDBC URL; may name {@code ${VARIABLES}}). */
     public Quern withSource(String url) {
-        return new Quern(recipe.withSource(url), Path.of("").toAbsolutePath(), cutoffs, fitted, format);
+        return new Quern(recipe.withSource(url), Path.of("").toAbsolutePath(), cutoffs, fitted, format, shape);
     }
 
     /** The same recipe built at other cutoffs (a scoring run): same columns, other rows. */
     public Quern withCutoffs(List<LocalDate> dates) {
-        return new Quern(recipe, recipeFolder, Optional.of(List.copyOf(dates)), fitted, format);
+        return new Quern(recipe, recipeFolder, Optional.of(List.copyOf(dates)), fitted, format, shape);
     }
 
     /** Encodings taken from an earlier build's fitted file instead of fitted again. */
     public Quern withFitted(Path file) {
-        return new Quern(recipe, recipeFolder, cutoffs, Optional.of(file), format);
+        return new Quern(recipe, recipeFolder, cutoffs, Optional.of(file), format, shape);
     }
 
     /** The same recipe, writing the matrix in {@code format} (CSV unless told). */
     public Quern withFormat(MatrixFormat format) {
-        return new Quern(recipe, recipeFolder, cutoffs, fitted, java.util.Objects.requireNonNull(format, "format"));
+        return new Quern(recipe, recipeFolder, cutoffs, fitted, java.util.Objects.requireNonNull(format, "format"), shape);
+    }
+
+    /**
+     * The same recipe with every block computed in {@code shape} where that shape can compute it, instead of
+     * the shape chosen for the engine; {@code quern sql --explain} says what was chosen and why.
+     */
+    public Quern withShape(BlockShape shape) {
+        return new Quern(recipe, recipeFolder, cutoffs, fitted, format,
+                Optional.of(java.util.Objects.requireNonNull(shape, "shape")));
     }
 
     public Recipe recipe() {
@@ -294,7 +306,7 @@ public final class Quern {
         Plan plan = cutoffs.map(planned::withCutoffs).orElse(planned);
         Encoder.plan(recipe, plan);
         Audit.checkAcknowledgements(recipe, plan);
-        CompiledQuery query = SqlCompiler.compile(plan);
+        CompiledQuery query = SqlCompiler.compile(plan, shape);
         long t2 = System.nanoTime();
         timings.put("schema", Duration.ofNanos(t1 - t0));
         timings.put("compile", Duration.ofNanos(t2 - t1));

@@ -104,6 +104,7 @@ final class SourceRows {
     private static final String AT_CUTOFF = "audit_cutoff";
     private static final String ROW_KEY = "audit_row";
     private static final String RANK = "audit_rank";
+    private static final String FIRST_EXIT = "first_exit";
     static final int EXAMPLES = 3;
 
     private final Recipe recipe;
@@ -157,10 +158,20 @@ final class SourceRows {
         List<String> all = block.aggregates().stream().map(Aggregate::column).toList();
         Field<Object> time = field(path.time().column());
         TimeStorage storage = path.time().storage();
-        Table<?> from = cohortRows().join(DSL.table(DSL.name(path.table())).as(DSL.name(path.alias())))
-                .on(field(path.entityLink()).eq(field(plan.cohort().key()))
-                        .and(time.ge(boundaryColumn(windowColumn(block.longestWindow()), storage)))
-                        .and(time.lt(boundaryColumn(VISIBLE_UNTIL, storage))));
+        Cohort cohort = plan.cohort();
+        // The path's rows first, each paired with the few cutoffs whose window holds it, then the entity row by
+        // its key: SQLite keeps the left table of a CROSS JOIN as the outer loop, and reading the rows once
+        // costs a fraction of probing them for every (entity, cutoff) of the cohort.
+        Table<?> from = DSL.table(DSL.name(path.table())).as(DSL.name(path.alias())).crossJoin(cutoffs())
+                .join(DSL.table(DSL.name(cohort.table())).as(DSL.name(cohort.alias())))
+                .on(field(cohort.key()).eq(field(path.entityLink())));
+        List<Cohort.Exit> exits = cohort.exits();
+        for (int i = 0; i < exits.size(); i++) {
+            Cohort.Exit exit = exits.get(i);
+            from = from.leftJoin(firstExit(exit, i)).on(DSL.field(DSL.name(exitName(i), ENTITY)).eq(field(cohort.key())));
+        }
+        Condition inWindow = time.ge(boundaryColumn(windowColumn(block.longestWindow()), storage))
+                .and(time.lt(boundaryColumn(VISIBLE_UNTIL, storage)));
         for (Hop hop : path.hops()) {
             from = from.leftJoin(DSL.table(DSL.name(hop.table())).as(DSL.name(hop.alias())))
                     .on(DSL.field(DSL.name(hop.alias(), hop.key())).eq(field(hop.link())));
@@ -189,7 +200,7 @@ final class SourceRows {
         }
         inputs.forEach((k, c) -> filled(c, byInput.get(k)).ifPresent(flags::add));
         String name = "block " + path.text() + " (" + all.get(0) + (all.size() > 1 ? ", ..." : "") + ")";
-        return new Feed(name, from, cohortCondition(), List.of(), path.key(), flags);
+        return new Feed(name, from, inWindow.and(eligibleByFirstExit()), List.of(), path.key(), flags);
     }
 
     private Feed lookup(Lookup lookup) {
@@ -316,6 +327,37 @@ final class SourceRows {
                             .and(field(exit.time().column()).lt(boundaryColumn(VISIBLE_UNTIL, exit.time().storage())))));
         }
         return eligible;
+    }
+
+    /**
+     * The same pairs as {@link #cohortCondition}, with each exit table read once: no exit row before the end of
+     * the cutoff day is the same as the entity's first exit time (if any) being on or after it.
+     */
+    private Condition eligibleByFirstExit() {
+        Cohort cohort = plan.cohort();
+        Condition eligible = DSL.noCondition();
+        if (cohort.since().isPresent()) {
+            TimeRef since = cohort.since().get();
+            eligible = eligible.and(field(since.column()).lt(boundaryColumn(VISIBLE_UNTIL, since.storage())));
+        }
+        for (int i = 0; i < cohort.exits().size(); i++) {
+            Field<Object> first = DSL.field(DSL.name(exitName(i), FIRST_EXIT));
+            eligible = eligible.and(first.isNull().or(first.ge(
+                    boundaryColumn(VISIBLE_UNTIL, cohort.exits().get(i).time().storage()))));
+        }
+        return eligible;
+    }
+
+    /** Each entity's earliest row of an exit table. */
+    private Table<?> firstExit(Cohort.Exit exit, int i) {
+        Field<Object> link = field(exit.entityLink());
+        return DSL.select(link.as(ENTITY), DSL.min(field(exit.time().column())).as(FIRST_EXIT))
+                .from(DSL.table(DSL.name(exit.table())).as(DSL.name(exit.alias())))
+                .groupBy(link).asTable(DSL.name(exitName(i)));
+    }
+
+    private static String exitName(int i) {
+        return "audit_exit_" + i;
     }
 
     private Field<Object> boundaryColumn(String column, TimeStorage storage) {

@@ -7,18 +7,26 @@ import picocli.CommandLine.Spec;
 
 /** {@code quern sql}: the compiled query, for review or to run by hand. */
 @Command(name = "sql", mixinStandardHelpOptions = true,
-        description = "Print the SQL the recipe compiles to for its source's engine.")
+        description = "Print the SQL the recipe compiles to for its source's engine: the main query, then one"
+                + " ordered scan per block computed that way.")
 final class SqlCommand implements Callable<Integer> {
 
     @Mixin
     RecipeOptions recipe = new RecipeOptions();
+
+    @picocli.CommandLine.Option(names = "--explain",
+            description = "Say above the SQL, as comments, which shape each block takes and why.")
+    boolean explain;
 
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
     @Override
     public Integer call() {
-        spec.commandLine().getOut().println(recipe.load().compile().query().formattedSql() + ";");
+        var query = recipe.load().compile().query();
+        var out = spec.commandLine().getOut();
+        out.print((explain ? query.explain() + "\n" : "") + query.script());
+        out.flush();
         return 0;
     }
 }

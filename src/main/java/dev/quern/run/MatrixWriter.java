@@ -5,6 +5,7 @@ import dev.quern.plan.OutputColumn;
 import dev.quern.plan.Role;
 import dev.quern.sql.CompiledQuery;
 import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.io.Writer;
 import java.sql.Connection;
 import java.sql.ResultSet;
@@ -15,12 +16,14 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.function.Consumer;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
 
 /**
  * The run stage's core: executes the compiled query on a read-only connection and streams its rows to
- * CSV as they arrive, keeping only running statistics, so memory does not grow with the row count.
+ * CSV as they arrive, keeping only running statistics, so memory does not grow with the row count. Scanned
+ * blocks ({@link ScannedRows}) are merged in before the rows are written.
  */
 public final class MatrixWriter {
 
@@ -35,52 +38,38 @@ public final class MatrixWriter {
 
     public static RunResult write(CompiledQuery query, Connection connection, Writer out, Progress progress) {
         List<OutputColumn> columns = query.plan().columns();
-        List<ColumnStats> stats = new ArrayList<>();
-        columns.forEach(c -> stats.add(new ColumnStats(c.name(), c.type())));
-        int cutoffIndex = indexOf(columns, Role.CUTOFF);
-        int labelIndex = columns.stream().map(OutputColumn::role).toList().indexOf(Role.LABEL);
-        Map<String, Long> perCutoff = new LinkedHashMap<>();
-        Map<String, ColumnStats> labelPerCutoff = new LinkedHashMap<>();
         long started = System.nanoTime();
-        long firstRow = 0;
-        long rows = 0;
+        long[] firstRow = {0};
         try {
             boolean autoCommit = connection.getAutoCommit();
             // Some drivers (PostgreSQL) only stream with a fetch size inside a transaction.
             connection.setAutoCommit(false);
-            try (Statement statement = connection.createStatement();
-                 CSVPrinter csv = new CSVPrinter(out, FORMAT)) {
-                statement.setFetchSize(FETCH_SIZE);
-                csv.printRecord(query.columns());
-                String[] record = new String[columns.size()];
-                Object label = null;
-                try (ResultSet rs = statement.executeQuery(query.sql())) {
-                    firstRow = System.nanoTime();
-                    int[] types = ValueFormat.readTypes(rs.getMetaData(), query.plan().engine());
-                    while (rs.next()) {
-                        for (int i = 0; i < record.length; i++) {
-                            Object value = ValueFormat.read(rs, i + 1, types[i]);
-                            if (i == labelIndex) {
-                                label = value;
+            try (CSVPrinter csv = new CSVPrinter(out, FORMAT)) {
+                csv.printRecord(query.plan().columns().stream().map(OutputColumn::name).toList());
+                // With scans, the merge counts the rows; writing them out after it is quick and says nothing.
+                Rows rows = new Rows(columns, csv, query.scanned() ? Progress.SILENT : progress);
+                if (query.scanned()) {
+                    new ScannedRows(query).run(connection, progress, () -> firstRow[0] = System.nanoTime(), rows);
+                } else {
+                    try (Statement statement = connection.createStatement()) {
+                        statement.setFetchSize(FETCH_SIZE);
+                        try (ResultSet rs = statement.executeQuery(query.sql())) {
+                            firstRow[0] = System.nanoTime();
+                            int[] types = ValueFormat.readTypes(rs.getMetaData(), query.plan().engine());
+                            while (rs.next()) {
+                                Object[] values = new Object[types.length];
+                                for (int i = 0; i < values.length; i++) {
+                                    values[i] = ValueFormat.read(rs, i + 1, types[i]);
+                                }
+                                rows.accept(values);
                             }
-                            record[i] = ValueFormat.format(value, columns.get(i).type());
-                            stats.get(i).add(value, record[i]);
-                        }
-                        csv.printRecord((Object[]) record);
-                        perCutoff.merge(record[cutoffIndex], 1L, Long::sum);
-                        if (labelIndex >= 0) {
-                            OutputColumn labelColumn = columns.get(labelIndex);
-                            labelPerCutoff.computeIfAbsent(record[cutoffIndex],
-                                    c -> ColumnStats.summaryOnly(labelColumn.name(), labelColumn.type()))
-                                    .add(label, record[labelIndex]);
-                        }
-                        if (++rows % FETCH_SIZE == 0) {
-                            progress.rows(rows);
                         }
                     }
                 }
-                progress.rows(rows);
-                csv.flush();
+                rows.flush();
+                long ended = System.nanoTime();
+                long queryEnd = firstRow[0] == 0 ? ended : firstRow[0];
+                return rows.result(Duration.ofNanos(queryEnd - started), Duration.ofNanos(ended - queryEnd));
             } finally {
                 connection.rollback();
                 connection.setAutoCommit(autoCommit);
@@ -90,11 +79,65 @@ public final class MatrixWriter {
                     + " (see it with 'quern sql')", e);
         } catch (IOException e) {
             throw QuernException.output("writing the matrix failed: " + e.getMessage(), e);
+        } catch (UncheckedIOException e) {
+            throw QuernException.output("writing the matrix failed: " + e.getCause().getMessage(), e);
         }
-        long ended = System.nanoTime();
-        long queryEnd = firstRow == 0 ? ended : firstRow;
-        return new RunResult(rows, perCutoff, stats, Duration.ofNanos(queryEnd - started),
-                Duration.ofNanos(ended - queryEnd), labelPerCutoff);
+    }
+
+    /** Each row as it is written: its text, the running statistics and the tallies per cutoff. */
+    private static final class Rows implements Consumer<Object[]> {
+        private final List<OutputColumn> columns;
+        private final CSVPrinter csv;
+        private final Progress progress;
+        private final List<ColumnStats> stats = new ArrayList<>();
+        private final int cutoffIndex;
+        private final int labelIndex;
+        private final Map<String, Long> perCutoff = new LinkedHashMap<>();
+        private final Map<String, ColumnStats> labelPerCutoff = new LinkedHashMap<>();
+        private final String[] record;
+        private long rows;
+
+        Rows(List<OutputColumn> columns, CSVPrinter csv, Progress progress) {
+            this.columns = columns;
+            this.csv = csv;
+            this.progress = progress;
+            columns.forEach(c -> stats.add(new ColumnStats(c.name(), c.type())));
+            this.cutoffIndex = indexOf(columns, Role.CUTOFF);
+            this.labelIndex = columns.stream().map(OutputColumn::role).toList().indexOf(Role.LABEL);
+            this.record = new String[columns.size()];
+        }
+
+        @Override
+        public void accept(Object[] values) {
+            for (int i = 0; i < record.length; i++) {
+                record[i] = ValueFormat.format(values[i], columns.get(i).type());
+                stats.get(i).add(values[i], record[i]);
+            }
+            try {
+                csv.printRecord((Object[]) record);
+            } catch (IOException e) {
+                throw new UncheckedIOException(e);
+            }
+            perCutoff.merge(record[cutoffIndex], 1L, Long::sum);
+            if (labelIndex >= 0) {
+                OutputColumn labelColumn = columns.get(labelIndex);
+                labelPerCutoff.computeIfAbsent(record[cutoffIndex],
+                        c -> ColumnStats.summaryOnly(labelColumn.name(), labelColumn.type()))
+                        .add(values[labelIndex], record[labelIndex]);
+            }
+            if (++rows % FETCH_SIZE == 0) {
+                progress.rows(rows);
+            }
+        }
+
+        void flush() throws IOException {
+            progress.rows(rows);
+            csv.flush();
+        }
+
+        RunResult result(Duration query, Duration write) {
+            return new RunResult(rows, perCutoff, stats, query, write, labelPerCutoff);
+        }
     }
 
     private static int indexOf(List<OutputColumn> columns, Role role) {

@@ -14,6 +14,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import org.jooq.CommonTableExpression;
 import org.jooq.Condition;
 import org.jooq.DSLContext;
@@ -44,16 +45,26 @@ public final class SqlCompiler {
     private record Joined(String cte) {
     }
 
-    private SqlCompiler(Plan plan) {
+    private final List<ShapeChoice> choices;
+    private final List<BlockScan> scans = new ArrayList<>();
+
+    private SqlCompiler(Plan plan, Optional<BlockShape> asked) {
         this.plan = plan;
+        this.choices = ShapeChooser.choose(plan, asked);
         this.engine = EngineSql.of(plan.engine());
         this.sql = engine.context();
         this.renderer = ExprRenderer.forEngine(plan.engine());
         this.sources = new SourceTables(plan, renderer);
     }
 
+    /** The plan with each block in the shape its engine runs best. */
     public static CompiledQuery compile(Plan plan) {
-        return new SqlCompiler(plan).compile();
+        return compile(plan, Optional.empty());
+    }
+
+    /** The plan with every block in the shape {@code asked} where that shape can compute it. */
+    public static CompiledQuery compile(Plan plan, Optional<BlockShape> asked) {
+        return new SqlCompiler(plan, asked).compile();
     }
 
     private CompiledQuery compile() {
@@ -61,7 +72,13 @@ public final class SqlCompiler {
         ctes.add(cutoffs(cutoffColumns));
         ctes.add(new CohortSql(plan.cohort(), cutoffColumns, plan.lookups(), engine, sources, renderer).cte());
         cohortOutputs(plan.cohort());
-        for (Block block : plan.blocks()) {
+        ScanSql scanSql = new ScanSql(plan, engine, sources, renderer);
+        for (ShapeChoice choice : choices) {
+            Block block = choice.block();
+            if (choice.shape() == BlockShape.ORDERED_SCAN) {
+                scans.add(scanSql.scan(block));
+                continue;
+            }
             BlockSql blockSql = new BlockSql(block, engine, sources, renderer);
             ctes.add(blockSql.cte());
             joins.add(new Joined(block.name()));
@@ -73,12 +90,19 @@ public final class SqlCompiler {
         for (Lookup lookup : plan.lookups()) {
             lookup(lookup);
         }
-        plan.derived().forEach(this::derived);
+        // Derived columns read block columns; when a block is scanned, the run stage computes them per row.
+        boolean scanned = !scans.isEmpty();
+        if (!scanned) {
+            plan.derived().forEach(this::derived);
+        }
         plan.label().ifPresent(this::label);
         List<SelectField<?>> select = new ArrayList<>();
         List<String> names = new ArrayList<>();
         for (OutputColumn c : plan.columns()) {
             Field<Object> f = outputs.get(c.name());
+            if (f == null && scanned) {
+                continue;
+            }
             if (f == null) {
                 throw new IllegalStateException("no expression for output column " + c.name());
             }
@@ -89,11 +113,14 @@ public final class SqlCompiler {
         for (Joined j : joins) {
             query = query.leftJoin(Names.table(j.cte())).on(sameRow(j.cte()));
         }
-        var ordered = query.orderBy(Names.field(Names.COHORT, Names.CUTOFF), Names.field(Names.COHORT, Names.KEY));
+        Field<Object> key = Names.field(Names.COHORT, Names.KEY);
+        Field<Object> cutoff = Names.field(Names.COHORT, Names.CUTOFF);
+        // Scanned blocks arrive in key order, so the rest of the row must too; the run stage restores cutoff order.
+        var ordered = scanned ? query.orderBy(key, cutoff) : query.orderBy(cutoff, key);
         String flat = sql.renderInlined(ordered);
         String formatted = DSL.using(sql.dialect(),
                 org.jooq.conf.SettingsTools.clone(sql.settings()).withRenderFormatted(true)).renderInlined(ordered);
-        return new CompiledQuery(plan, flat, formatted, names);
+        return new CompiledQuery(plan, flat, formatted, names, scans, choices);
     }
 
     private static Condition sameRow(String cte) {

@@ -93,7 +93,7 @@ class BuildCommandTest {
 
     @Test
     void sqlPrintsOneSelectForTheWholeMatrix() {
-        assertEquals(0, quern("sql", DEMO), err.toString());
+        assertEquals(0, quern("sql", DEMO, "--shape", "range-join"), err.toString());
         String sql = out.toString();
         assertTrue(sql.startsWith("with"), sql.substring(0, 40));
         // One grouped scan per block, lookup and label: never one subquery per feature.
@@ -102,6 +102,27 @@ class BuildCommandTest {
         // and each time without the rides its plausibility rule excludes.
         assertEquals(2, count(sql, "from rides\n"), sql);
         assertEquals(2, count(sql, "rides.distance_km"), sql);
+    }
+
+    @Test
+    void sqlOnSqlitePrintsOneOrderedScanPerBlockThatCanBeScannedAndExplainsWhy() {
+        assertEquals(0, quern("sql", DEMO, "--explain"), err.toString());
+        String sql = out.toString();
+        assertTrue(sql.startsWith("-- member-churn on sqlite: 19 cutoffs, 6 blocks\n"), sql.substring(0, 80));
+        // The tickets block whose where reads the cutoff cannot be scanned once for every cutoff.
+        assertEquals(5, count(sql, ": ordered-scan\n"), sql);
+        assertEquals(1, count(sql, ": range-join\n--   the block's where uses the cutoff"), sql);
+        assertEquals(5, count(sql, "ordered scan, windows computed as rows stream by"), sql);
+        assertEquals(2, count(sql, "group by"), "the block left to a range join and the label");
+        // Each scan still reads rides once, without the rides the plausibility rule excludes.
+        assertEquals(2, count(sql, "from rides\n"), sql);
+        assertEquals(2, count(sql, "rides.distance_km"), sql);
+    }
+
+    @Test
+    void anUnknownShapeIsAUsageErrorThatListsTheShapes() {
+        assertEquals(2, quern("sql", DEMO, "--shape", "sideways"));
+        assertTrue(err.toString().contains("'sideways' is not a shape; use range-join or ordered-scan"), err.toString());
     }
 
     private static int count(String text, String part) {

@@ -6,6 +6,9 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.quern.Quern;
+import dev.quern.sql.BlockShape;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.EnumSource;
 import dev.quern.recipe.Recipe;
 import dev.quern.recipe.RecipeReader;
 import dev.quern.run.Progress;
@@ -19,7 +22,6 @@ import java.util.ArrayList;
 import java.util.Collections;
 import java.util.List;
 import org.junit.jupiter.api.BeforeAll;
-import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.function.Executable;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -35,10 +37,11 @@ class ReferenceMatrixTest {
     @TempDir
     static Path folder;
 
-    @Test
-    void demoMatrixMatchesTheReferenceEvaluatorCellForCell() {
-        Path out = folder.resolve("demo");
-        Quern.load(DEMO_RECIPE).build(out, Progress.SILENT);
+    @ParameterizedTest
+    @EnumSource(BlockShape.class)
+    void demoMatrixMatchesTheReferenceEvaluatorCellForCell(BlockShape shape) {
+        Path out = folder.resolve("demo-" + shape.spelling());
+        Quern.load(DEMO_RECIPE).withShape(shape).build(out, Progress.SILENT);
         MatrixComparison.Csv actual = MatrixComparison.Csv.read(out.resolve(Quern.MATRIX));
         ReferenceEvaluator.Result expected = ReferenceEvaluator.evaluate(RecipeReader.read(DEMO_RECIPE), DEMO_DB);
 
@@ -167,10 +170,10 @@ class ReferenceMatrixTest {
             """;
 
     /** Builds one variant of the edge recipe and recomputes it with the evaluator. */
-    private static Built buildEdges(String variant, String since, String cutoffs, String label) {
+    private static Built buildEdges(BlockShape shape, String variant, String since, String cutoffs, String label) {
         Recipe recipe = RecipeReader.parse(variant + ".yaml", EDGE_RECIPE.formatted(since, cutoffs, label));
-        Path out = folder.resolve(variant);
-        Quern.of(recipe, folder).build(out, Progress.SILENT);
+        Path out = folder.resolve(variant + "-" + shape.spelling());
+        Quern.of(recipe, folder).withShape(shape).build(out, Progress.SILENT);
         MatrixComparison.Csv actual = MatrixComparison.Csv.read(out.resolve(Quern.MATRIX));
         ReferenceEvaluator.Result expected = ReferenceEvaluator.evaluate(recipe, folder.resolve("edges.sqlite"));
         return new Built(expected, actual);
@@ -198,9 +201,10 @@ class ReferenceMatrixTest {
         }
     }
 
-    @Test
-    void weeklyEdgeCasesMatchTheReferenceEvaluatorAndHandWorkedValues() {
-        Built built = buildEdges("edges-weekly", "joined_on", "{ every: week-end, from: 2025-01-01, to: 2025-03-31 }",
+    @ParameterizedTest
+    @EnumSource(BlockShape.class)
+    void weeklyEdgeCasesMatchTheReferenceEvaluatorAndHandWorkedValues(BlockShape shape) {
+        Built built = buildEdges(shape, "edges-weekly", "joined_on", "{ every: week-end, from: 2025-01-01, to: 2025-03-31 }",
                 "{ name: orders_next_30d, from: orders, horizon: 30d, gap: 7d, value: count }");
         List<Executable> checks = new ArrayList<>();
         checks.add(built::assertMatches);
@@ -269,9 +273,10 @@ class ReferenceMatrixTest {
         assertAll(checks);
     }
 
-    @Test
-    void datedEdgeCasesMatchTheReferenceEvaluatorAndHandWorkedValues() {
-        Built built = buildEdges("edges-dated", "signed_up_at",
+    @ParameterizedTest
+    @EnumSource(BlockShape.class)
+    void datedEdgeCasesMatchTheReferenceEvaluatorAndHandWorkedValues(BlockShape shape) {
+        Built built = buildEdges(shape, "edges-dated", "signed_up_at",
                 "{ dates: [2025-03-31, 2024-02-28, 2025-02-28, 2025-03-23, 2025-03-24, 2025-03-25, 2025-03-26,"
                         + " 2025-03-30] }",
                 "{ name: spend_after_2w, from: orders, horizon: 1m, gap: 2w, value: sum(amount) }");

@@ -3,13 +3,15 @@ package dev.quern.run;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import dev.quern.Quern;
+import dev.quern.sql.BlockShape;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.EnumSource;
 import dev.quern.recipe.RecipeReader;
 import dev.quern.testing.Matrix;
 import dev.quern.testing.NistDatabase;
 import java.io.IOException;
 import java.nio.file.Path;
 import org.junit.jupiter.api.BeforeAll;
-import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 /**
@@ -25,7 +27,7 @@ class NistStddevTest {
     @TempDir
     static Path folder;
 
-    static Matrix matrix;
+    static final java.util.Map<BlockShape, Matrix> matrices = new java.util.EnumMap<>(BlockShape.class);
 
     @BeforeAll
     static void build() throws IOException {
@@ -42,37 +44,47 @@ class NistStddevTest {
                     windows: [365d]
                     measures: [count, mean(value), stddev(value)]
                 """;
-        Quern.of(RecipeReader.parse("nist.yaml", recipe), folder).build(folder.resolve("out"), Progress.SILENT);
-        matrix = Matrix.read(folder.resolve("out").resolve("matrix.csv"));
+        // Every shape computes its own means and deviations, so each must meet the certified values.
+        for (BlockShape shape : BlockShape.values()) {
+            Path out = folder.resolve("out-" + shape.spelling());
+            Quern.of(RecipeReader.parse("nist.yaml", recipe), folder).withShape(shape).build(out, Progress.SILENT);
+            matrices.put(shape, Matrix.read(out.resolve("matrix.csv")));
+        }
     }
 
-    @Test
-    void numAcc1() {
-        check(1, 3, 10000002.0, 1.0, 1e-9);
+    @ParameterizedTest
+    @EnumSource(BlockShape.class)
+    void numAcc1(BlockShape shape) {
+        check(shape, 1, 3, 10000002.0, 1.0, 1e-9);
     }
 
-    @Test
-    void numAcc2() {
-        check(2, 1001, 1.2, 0.1, 1e-9);
+    @ParameterizedTest
+    @EnumSource(BlockShape.class)
+    void numAcc2(BlockShape shape) {
+        check(shape, 2, 1001, 1.2, 0.1, 1e-9);
     }
 
-    @Test
-    void numAcc3() {
-        check(3, 1001, 1000000.2, 0.1, 1e-9);
+    @ParameterizedTest
+    @EnumSource(BlockShape.class)
+    void numAcc3(BlockShape shape) {
+        check(shape, 3, 1001, 1000000.2, 0.1, 1e-9);
     }
 
-    @Test
-    void numAcc4() {
-        check(4, 1001, 10000000.2, 0.1, 1e-8);
+    @ParameterizedTest
+    @EnumSource(BlockShape.class)
+    void numAcc4(BlockShape shape) {
+        check(shape, 4, 1001, 10000000.2, 0.1, 1e-8);
     }
 
-    @Test
-    void michelso() {
-        check(5, 100, 299.852400000000, 0.0790105478190518, 1e-9);
+    @ParameterizedTest
+    @EnumSource(BlockShape.class)
+    void michelso(BlockShape shape) {
+        check(shape, 5, 100, 299.852400000000, 0.0790105478190518, 1e-9);
     }
 
-    private static void check(int sensor, int n, double certifiedMean, double certifiedSd, double relative) {
-        var row = matrix.row(Integer.toString(sensor), "2025-01-31");
+    private static void check(BlockShape shape, int sensor, int n, double certifiedMean, double certifiedSd,
+                              double relative) {
+        var row = matrices.get(shape).row(Integer.toString(sensor), "2025-01-31");
         assertEquals(Integer.toString(n), row.get("readings_count_365d"));
         double mean = Double.parseDouble(row.get("readings_mean_value_365d"));
         double sd = Double.parseDouble(row.get("readings_stddev_value_365d"));

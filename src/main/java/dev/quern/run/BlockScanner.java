@@ -1,0 +1,185 @@
+package dev.quern.run;
+
+import dev.quern.QuernException;
+import dev.quern.plan.Aggregate;
+import dev.quern.plan.Block;
+import dev.quern.plan.Boundary;
+import dev.quern.sql.BlockScan;
+import java.sql.ResultSet;
+import java.sql.SQLException;
+import java.time.LocalDate;
+import java.util.Arrays;
+import java.util.List;
+
+/**
+ * Reads one ordered-scan block's rows, one entity at a time, and answers each (entity, cutoff) of the
+ * matrix with the block's measures. The entities come in key order, as the matrix rows do, so only the
+ * current entity's rows are held: memory grows with the longest history of one entity, not with the table.
+ */
+final class BlockScanner implements AutoCloseable {
+
+    private final BlockScan scan;
+    private final ResultSet rows;
+    private final int[] types;
+    private final String dayColumn;
+    private final List<Aggregate> aggregates;
+    private final int inputs;
+    private final int[] aggregateInput;
+    private final java.util.Map<LocalDate, int[]> boundaries = new java.util.HashMap<>();
+    private static final Object[] NONE = new Object[0];
+
+    /** The current entity: its key and its rows' days and inputs, in day order. */
+    private Object key;
+    private int size;
+    private int[] days = new int[64];
+    private Object[][] values;
+
+    /** The next entity's first row, read ahead; {@code exhausted} once the result has no more rows. */
+    private boolean pending;
+    private boolean exhausted;
+
+    BlockScanner(BlockScan scan, ResultSet rows, int[] types) {
+        this.scan = scan;
+        this.rows = rows;
+        this.types = types.clone();
+        Block block = scan.block();
+        this.dayColumn = block.path().time().column().qualified();
+        this.aggregates = block.aggregates();
+        this.inputs = types.length - (BlockScan.FIRST_INPUT - 1);
+        this.values = new Object[inputs][64];
+        this.aggregateInput = new int[aggregates.size()];
+        for (int i = 0; i < aggregates.size(); i++) {
+            aggregateInput[i] = scan.inputColumn(i) - BlockScan.FIRST_INPUT;
+        }
+    }
+
+    Block block() {
+        return scan.block();
+    }
+
+    /**
+     * Puts the block's measures for {@code entity} at {@code cutoff} into {@code out}, one per aggregate in
+     * block order starting at {@code offsets}' positions. Entities must be asked for in key order.
+     */
+    void measure(Object entity, LocalDate cutoff, Object[] out, int[] offsets) throws SQLException {
+        advanceTo(entity);
+        boolean has = key != null && KeyOrder.INSTANCE.compare(key, entity) == 0;
+        int[] bounds = boundaries.computeIfAbsent(cutoff, this::boundaries);
+        int to = has ? lowerBound(bounds[aggregates.size()]) : 0;
+        for (int i = 0; i < aggregates.size(); i++) {
+            Aggregate a = aggregates.get(i);
+            int from = has ? lowerBound(bounds[i]) : 0;
+            Object[] input = aggregateInput[i] >= 0 ? values[aggregateInput[i]] : NONE;
+            out[offsets[i]] = Measures.of(a.kind(), input, days, from, Math.max(from, to), cutoff, a.column());
+        }
+    }
+
+    /** Each aggregate's window start at {@code cutoff}, then the end of the cutoff day, as {@link Days} numbers. */
+    private int[] boundaries(LocalDate cutoff) {
+        int[] out = new int[aggregates.size() + 1];
+        for (int i = 0; i < aggregates.size(); i++) {
+            out[i] = Days.of(new Boundary.WindowStart(aggregates.get(i).window()).at(cutoff));
+        }
+        out[aggregates.size()] = Days.of(new Boundary.CutoffEnd().at(cutoff));
+        return out;
+    }
+
+    /** A stream the engine ordered otherwise than the merge expects: the range join does not depend on order. */
+    static QuernException outOfOrder(String what, Object previous, Object next) {
+        return QuernException.data(what + " came back with key " + next + " after " + previous + ", not in the"
+                + " order the ordered scan merges by (numbers, then text by code point); build with --shape range-join");
+    }
+
+    /** Reads entities until the current one is {@code entity} or after it. */
+    private void advanceTo(Object entity) throws SQLException {
+        while (key == null || KeyOrder.INSTANCE.compare(key, entity) < 0) {
+            if (!readEntity()) {
+                key = null;
+                return;
+            }
+        }
+    }
+
+    /** Loads the next entity's rows; false at the end of the result. */
+    private boolean readEntity() throws SQLException {
+        if (!pending && (exhausted || !next())) {
+            return false;
+        }
+        Object previous = key;
+        key = ValueFormat.read(rows, 1, types[0]);
+        if (previous != null && KeyOrder.INSTANCE.compare(previous, key) >= 0) {
+            throw outOfOrder("the scan of " + scan.block().path().text(), previous, key);
+        }
+        size = 0;
+        boolean sorted = true;
+        do {
+            append();
+            sorted &= size < 2 || days[size - 2] <= days[size - 1];
+            pending = next();
+        } while (pending && KeyOrder.INSTANCE.compare(ValueFormat.read(rows, 1, types[0]), key) == 0);
+        if (!sorted) {
+            sortByDay();
+        }
+        return true;
+    }
+
+    private boolean next() throws SQLException {
+        boolean more = rows.next();
+        exhausted = !more;
+        return more;
+    }
+
+    private void append() throws SQLException {
+        if (size == days.length) {
+            int grown = size * 2;
+            days = Arrays.copyOf(days, grown);
+            for (int i = 0; i < inputs; i++) {
+                values[i] = Arrays.copyOf(values[i], grown);
+            }
+        }
+        days[size] = Days.of(ValueFormat.read(rows, 2, types[1]), dayColumn);
+        for (int i = 0; i < inputs; i++) {
+            values[i][size] = ValueFormat.read(rows, BlockScan.FIRST_INPUT + i, types[BlockScan.FIRST_INPUT - 1 + i]);
+        }
+        size++;
+    }
+
+    /** Engines order the days as {@link Days} does; this only guards against one that does not. */
+    private void sortByDay() {
+        Integer[] order = new Integer[size];
+        for (int i = 0; i < size; i++) {
+            order[i] = i;
+        }
+        Arrays.sort(order, (a, b) -> Integer.compare(days[a], days[b]));
+        int[] d = new int[days.length];
+        Object[][] v = new Object[inputs][days.length];
+        for (int i = 0; i < size; i++) {
+            d[i] = days[order[i]];
+            for (int j = 0; j < inputs; j++) {
+                v[j][i] = values[j][order[i]];
+            }
+        }
+        days = d;
+        values = v;
+    }
+
+    /** The first held row whose day is on or after {@code day}. */
+    private int lowerBound(int day) {
+        int lo = 0;
+        int hi = size;
+        while (lo < hi) {
+            int mid = (lo + hi) >>> 1;
+            if (days[mid] < day) {
+                lo = mid + 1;
+            } else {
+                hi = mid;
+            }
+        }
+        return lo;
+    }
+
+    @Override
+    public void close() throws SQLException {
+        rows.close();
+    }
+}

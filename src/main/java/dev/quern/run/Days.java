@@ -1,0 +1,78 @@
+package dev.quern.run;
+
+import dev.quern.QuernException;
+import java.time.DateTimeException;
+import java.time.LocalDate;
+import java.time.LocalDateTime;
+
+/**
+ * A row's day as the number {@code yyyymmdd}, which orders as the engine orders the day it read: ISO text
+ * compares as text, and a date as a date. Reading the digits rather than parsing a date keeps SQLite's
+ * text semantics exactly, even for a day such as {@code 2024-02-30} that SQLite would compare all the same.
+ */
+final class Days {
+
+    private Days() {
+    }
+
+    static int of(LocalDate day) {
+        return day.getYear() * 10_000 + day.getMonthValue() * 100 + day.getDayOfMonth();
+    }
+
+    /** The day an engine returned for a row: ISO text, a date, or a time whose date is the day. */
+    static int of(Object value, String column) {
+        if (value instanceof String s) {
+            return ofText(s, column);
+        }
+        if (value instanceof LocalDate d) {
+            return of(d);
+        }
+        if (value instanceof java.sql.Date d) {
+            return of(d.toLocalDate());
+        }
+        if (value instanceof LocalDateTime t) {
+            return of(t.toLocalDate());
+        }
+        throw QuernException.data(column + " gave the value " + value + " (" + value.getClass().getSimpleName()
+                + "), which Quern cannot read as a day; build with --shape range-join to compare it in SQL");
+    }
+
+    private static int ofText(String s, String column) {
+        if (s.length() != 10 || s.charAt(4) != '-' || s.charAt(7) != '-') {
+            throw notIso(s, column);
+        }
+        int value = 0;
+        for (int i = 0; i < 10; i++) {
+            if (i == 4 || i == 7) {
+                continue;
+            }
+            char c = s.charAt(i);
+            if (c < '0' || c > '9') {
+                throw notIso(s, column);
+            }
+            value = value * 10 + (c - '0');
+        }
+        return value;
+    }
+
+    private static QuernException notIso(String s, String column) {
+        return QuernException.data(column + " holds '" + s + "', which does not start with a YYYY-MM-DD date;"
+                + " store times as ISO text (2024-03-31 08:15:00), or build with --shape range-join");
+    }
+
+    /**
+     * Whole days from {@code day} to {@code cutoff}, counting a day past the month's end on into the next
+     * month as SQLite's julianday() does; empty for a month that does not exist.
+     */
+    static Long between(int day, LocalDate cutoff) {
+        int year = day / 10_000;
+        int month = day / 100 % 100;
+        int dayOfMonth = day % 100;
+        try {
+            LocalDate date = LocalDate.of(year, month, 1).plusDays(dayOfMonth - 1L);
+            return cutoff.toEpochDay() - date.toEpochDay();
+        } catch (DateTimeException e) {
+            return null;
+        }
+    }
+}
