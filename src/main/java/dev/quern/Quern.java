@@ -28,9 +28,11 @@ import dev.quern.run.OutputFolder;
 import dev.quern.run.ParquetWriter;
 import dev.quern.run.Progress;
 import dev.quern.run.RunResult;
+import dev.quern.schema.Engine;
 import dev.quern.schema.SchemaReader;
 import dev.quern.schema.Source;
 import dev.quern.schema.SourceSchema;
+import dev.quern.spark.SparkMatrix;
 import dev.quern.sql.CompiledQuery;
 import dev.quern.sql.SqlCompiler;
 import java.io.IOException;
@@ -169,6 +171,15 @@ public final class Quern {
             List<LateRows.Query> lateQueries = LateRows.of(compilation.plan());
             Map<String, Long> late = RuleRunner.countLate(lateQueries, connection);
             timings.put("rules", Duration.ofNanos(System.nanoTime() - rulesStarted));
+            CompiledQuery matrixQuery = compilation.query();
+            if (source.engine() == Engine.SPARK) {
+                // Spark writes the matrix itself, on the cluster; the stages below read its files back.
+                progress.stage("building " + MATRIX_PARQUET + " with Spark");
+                long sparkStarted = System.nanoTime();
+                matrixQuery = SparkMatrix.write(compilation.query(), connection, out.reserveFolder(MATRIX_PARQUET));
+                timings.put("spark", Duration.ofNanos(System.nanoTime() - sparkStarted));
+            }
+            CompiledQuery rows = matrixQuery;
             progress.stage("building " + MATRIX);
             RunResult run;
             Plan table = compilation.plan();
@@ -182,15 +193,17 @@ public final class Quern {
             };
             if (encoding.isEmpty() && frozen.isEmpty()) {
                 try (Writer matrix = out.open(MATRIX)) {
-                    run = MatrixWriter.write(compilation.query(), connection, matrix, progress);
+                    run = MatrixWriter.write(rows, connection, matrix, progress);
                 }
                 audit.accept(out.pending(MATRIX));
             } else {
                 // The encode stage: the raw matrix goes to a scratch file, then is fitted and encoded into MATRIX.
                 Encoder.Encoded encoded = Encoder.build(encoding, frozen, recipeSha256, out,
-                        raw -> MatrixWriter.write(compilation.query(), connection, raw, progress), audit, progress);
+                        raw -> MatrixWriter.write(rows, connection, raw, progress), audit, progress);
                 run = encoded.run();
                 table = encoded.plan();
+                // Spark's Parquet holds the raw columns; the matrix of an encoding recipe is the encoded CSV.
+                out.discard(MATRIX_PARQUET);
                 timings.put("encode", encoded.time());
             }
             timings.put("query", run.queryTime());
@@ -201,6 +214,7 @@ public final class Quern {
             if (leaks.blocked()) {
                 // The audit is the one output of a blocked build: no matrix, and nothing that describes one.
                 out.discard(MATRIX);
+                out.discard(MATRIX_PARQUET);
                 out.discard(Encoder.FITTED);
                 out.commit();
                 throw blockedBy(leaks, folder);
@@ -227,9 +241,12 @@ public final class Quern {
             out.write(REPORT, HtmlReport.render(table, run, lineage,
                     new HtmlReport.Facts(recipe.file(), recipeSha256, Version.current(), source.display(), builtAt),
                     drift, Thresholds.DEFAULT));
+            boolean writtenBySpark = source.engine() == Engine.SPARK && encoding.isEmpty() && frozen.isEmpty();
             if (format == MatrixFormat.PARQUET) {
-                progress.stage("writing " + format.fileName());
-                ParquetWriter.convert(out.pending(MATRIX), table.columns(), out.reserve(format.fileName()));
+                if (!writtenBySpark) {
+                    progress.stage("writing " + format.fileName());
+                    ParquetWriter.convert(out.pending(MATRIX), table.columns(), out.reserve(format.fileName()));
+                }
                 out.discard(MATRIX);
             }
             List<Path> files = out.commit();

@@ -63,6 +63,16 @@ public final class OutputFolder implements AutoCloseable {
         }
     }
 
+    /**
+     * A path, not yet created, that becomes the folder {@code name} on commit: for writers that make a
+     * folder of part files themselves (Spark's Parquet writer refuses a folder that exists).
+     */
+    public Path reserveFolder(String name) {
+        Path temp = folder.resolve("." + name + "." + java.util.UUID.randomUUID() + ".tmp");
+        pending.put(name, temp);
+        return temp;
+    }
+
     /** Writes a whole text output. */
     public void write(String name, String text) {
         try (Writer w = open(name)) {
@@ -91,7 +101,7 @@ public final class OutputFolder implements AutoCloseable {
             return;
         }
         try {
-            Files.deleteIfExists(temp);
+            delete(temp);
         } catch (IOException e) {
             throw QuernException.output("cannot remove the temporary file " + temp + ": " + e.getMessage(), e);
         }
@@ -103,6 +113,10 @@ public final class OutputFolder implements AutoCloseable {
         try {
             for (Map.Entry<String, Path> e : pending.entrySet()) {
                 Path target = folder.resolve(e.getKey());
+                if (Files.isDirectory(e.getValue()) || Files.isDirectory(target)) {
+                    // A folder cannot replace another in one move: an earlier build's folder goes first.
+                    delete(target);
+                }
                 try {
                     Files.move(e.getValue(), target, StandardCopyOption.ATOMIC_MOVE,
                             StandardCopyOption.REPLACE_EXISTING);
@@ -127,11 +141,22 @@ public final class OutputFolder implements AutoCloseable {
         }
         for (Path temp : pending.values()) {
             try {
-                Files.deleteIfExists(temp);
+                delete(temp);
             } catch (IOException e) {
                 throw new UncheckedIOException("cannot remove the temporary file " + temp, e);
             }
         }
         pending.clear();
+    }
+
+    private static void delete(Path path) throws IOException {
+        if (Files.isDirectory(path, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+            try (java.util.stream.Stream<Path> inside = Files.list(path)) {
+                for (Path p : inside.toList()) {
+                    delete(p);
+                }
+            }
+        }
+        Files.deleteIfExists(path);
     }
 }
