@@ -143,6 +143,21 @@ public final class Quern {
         }
     }
 
+    /**
+     * Compiles for {@code target} rather than for the source's own engine (Spark, for a recipe developed on a
+     * SQLite extract): the catalogue and the time storage are read from the source, and the query is rendered
+     * for {@code target}. Times the source keeps as ISO text are compared as text, which also holds for DATE
+     * and TIMESTAMP columns; the query a build on {@code target} runs is {@link #compile()} with that source.
+     */
+    public Compilation compileFor(Engine target) {
+        Source source = source();
+        try (Connection connection = source.open()) {
+            return compile(source, connection, new LinkedHashMap<>(), target);
+        } catch (SQLException e) {
+            throw QuernException.data("closing the source failed: " + e.getMessage(), e);
+        }
+    }
+
     /** Builds the modelling table and its reports into {@code folder}; all or nothing. */
     public BuildSummary build(Path folder, Progress progress) {
         return build(folder, progress, Optional.empty());
@@ -304,8 +319,13 @@ public final class Quern {
     }
 
     private Compilation compile(Source source, Connection connection, Map<String, Duration> timings) {
+        return compile(source, connection, timings, source.engine());
+    }
+
+    private Compilation compile(Source source, Connection connection, Map<String, Duration> timings, Engine target) {
         long t0 = System.nanoTime();
-        SourceSchema schema = new SchemaReader(connection, source.engine()).read(recipe);
+        SourceSchema read = new SchemaReader(connection, source.engine()).read(recipe);
+        SourceSchema schema = new SourceSchema(target, read.tables(), read.times());
         long t1 = System.nanoTime();
         Plan planned = Planner.plan(recipe, schema);
         Plan plan = cutoffs.map(planned::withCutoffs).orElse(planned);

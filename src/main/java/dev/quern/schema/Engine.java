@@ -89,6 +89,16 @@ public enum Engine {
         return urlPrefix;
     }
 
+    /** The engine whose label ({@code sqlite}, {@code spark}, ...) is {@code label}, in any case. */
+    public static Optional<Engine> forLabel(String label) {
+        for (Engine e : values()) {
+            if (e.label.equalsIgnoreCase(label)) {
+                return Optional.of(e);
+            }
+        }
+        return Optional.empty();
+    }
+
     public static Optional<Engine> forUrl(String url) {
         String lowered = url.toLowerCase(Locale.ROOT);
         for (Engine e : values()) {
