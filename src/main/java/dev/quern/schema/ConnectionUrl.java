@@ -85,6 +85,14 @@ public final class ConnectionUrl {
         return position;
     }
 
+    /**
+     * The URL as written: it names variables but holds no credential (one written out is refused above), so
+     * another source can be opened from it with the same variables.
+     */
+    public String written() {
+        return written;
+    }
+
     /** The URL as written, with any credential in it masked: safe to print. */
     public String display() {
         return display(written);

@@ -9,7 +9,9 @@ import java.nio.file.Path;
 import java.sql.Connection;
 import java.sql.SQLException;
 import java.util.List;
-import java.util.stream.Collectors;
+import java.util.UUID;
+import org.apache.spark.sql.Dataset;
+import org.apache.spark.sql.Row;
 import org.apache.spark.sql.SaveMode;
 import org.apache.spark.sql.classic.SparkSession;
 import org.jooq.impl.DSL;
@@ -33,19 +35,23 @@ public final class SparkMatrix {
         SparkSession session = SparkConnection.session(connection);
         String cutoff = column(query, Role.CUTOFF);
         String location = folder.toAbsolutePath().toUri().toString();
+        String view = "quern_matrix_" + UUID.randomUUID().toString().replace("-", "");
         try {
             ReadOnlyGuard.check(session, query.sql());
-            session.sql(query.sql()).write().mode(SaveMode.ErrorIfExists).partitionBy(cutoff).parquet(location);
+            Dataset<Row> matrix = session.sql(query.sql());
+            matrix.write().mode(SaveMode.ErrorIfExists).partitionBy(cutoff).parquet(location);
+            // Read back with the query's own schema: the cutoff keeps its type rather than one inferred from
+            // folder names, and a matrix without rows (no part files at all) reads as empty, not as an error.
+            session.read().schema(matrix.schema()).parquet(location).createOrReplaceTempView(view);
         } catch (SQLException | RuntimeException e) {
             throw QuernException.data("Spark could not run the compiled query: " + e.getMessage()
                     + " (see it with 'quern sql --engine spark')", e);
         }
         var sql = Engine.SPARK.sql();
-        String columns = query.columns().stream().map(c -> sql.render(DSL.name(c))).collect(Collectors.joining(", "));
-        // Spark reads a folder of Parquet files named in backquotes after "parquet."; a backquote in the path
-        // is doubled. The cutoff comes back from the folder names, as a DATE (partition type inference).
-        String readBack = "select " + columns + " from parquet.`" + location.replace("`", "``") + "` order by "
-                + sql.render(DSL.name(cutoff)) + ", " + sql.render(DSL.name(column(query, Role.KEY)));
+        String readBack = sql.select(query.columns().stream().map(c -> DSL.field(DSL.name(c))).toList())
+                .from(DSL.table(DSL.name(view)))
+                .orderBy(DSL.field(DSL.name(cutoff)), DSL.field(DSL.name(column(query, Role.KEY))))
+                .getSQL();
         return new CompiledQuery(query.plan(), readBack, readBack, query.columns());
     }
 

@@ -1,7 +1,10 @@
 package dev.quern.spark;
 
 import dev.quern.QuernException;
+import dev.quern.recipe.Name;
 import dev.quern.schema.ConnectionUrl;
+import dev.quern.schema.Engine;
+import dev.quern.schema.Source;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.sql.Connection;
@@ -60,7 +63,7 @@ public final class SparkSources {
             tables = files(session, folder(url.expand().substring(CSV.length()), baseDirectory), ".csv",
                     session.read().format("csv").option("header", "true").option("inferSchema", "true"));
         } else if (lowered.startsWith(JDBC)) {
-            tables = jdbc(session, url.inner(JDBC));
+            tables = jdbc(session, url.inner(JDBC), baseDirectory);
         } else {
             throw QuernException.recipe(url.position(), "the source '" + written + "' names no Spark reader: write "
                     + PARQUET + "FOLDER, " + CSV + "FOLDER or " + JDBC + "JDBC-URL");
@@ -114,18 +117,27 @@ public final class SparkSources {
      * The table names come from the database's own catalogue, through a plain read-only JDBC connection;
      * each table is then a Spark view that reads it through Spark's JDBC data source.
      */
-    private static Map<String, Dataset<Row>> jdbc(SparkSession session, ConnectionUrl inner) {
+    private static Map<String, Dataset<Row>> jdbc(SparkSession session, ConnectionUrl inner, Path baseDirectory) {
+        if (inner.engine() == Engine.SQLITE || inner.engine() == Engine.DUCKDB) {
+            // Spark's JDBC reader opens the database on every executor with the driver's defaults, which for
+            // SQLite and DuckDB files means read-write (and SQLite creates a missing file).
+            throw QuernException.recipe(inner.position(), "spark:jdbc: reads database servers; a " + inner.engine().label()
+                    + " file is read by its own engine (" + inner.engine().urlPrefix() + "...), or export its tables"
+                    + " as Parquet and use " + PARQUET + "FOLDER");
+        }
         Map<String, Dataset<Row>> tables = new LinkedHashMap<>();
         ConnectionUrl.DriverArguments arguments = inner.driverArguments(new Properties());
-        try (Connection c = inner.connect(new Properties())) {
-            c.setReadOnly(true);
+        // The catalogue is read through Quern's own read-only connection to the server.
+        try (Connection c = Source.of(new Name(inner.written(), inner.position()), baseDirectory).open()) {
             DatabaseMetaData meta = c.getMetaData();
             try (ResultSet rs = meta.getTables(c.getCatalog(), c.getSchema(), "%", new String[] {"TABLE", "VIEW"})) {
                 while (rs.next()) {
                     String table = rs.getString("TABLE_NAME");
                     if (TABLE_NAME.matcher(table).matches()) {
+                        // A TIMESTAMP without time zone stays one (TIMESTAMP_NTZ): read as Spark's TIMESTAMP it
+                        // would pass through the JVM's time zone on its way in.
                         DataFrameReader reader = session.read().format("jdbc").option("url", arguments.url())
-                                .option("dbtable", table);
+                                .option("dbtable", table).option("preferTimestampNTZ", "true");
                         for (String key : arguments.properties().stringPropertyNames()) {
                             reader = reader.option(key, arguments.properties().getProperty(key));
                         }

@@ -19,7 +19,7 @@ import org.apache.spark.sql.classic.SparkSession;
  * seconds) and the shipped sample exported to Parquet, one file per table, typed as {@code quern load}
  * types it (dates as DATE, times as TIMESTAMP) and written by DuckDB's COPY.
  */
-final class SparkSample {
+public final class SparkSample {
 
     static final Path SAMPLE = Path.of("sample-db", "cycle-club.sqlite").toAbsolutePath();
     static final Path DEMO = Path.of("recipes", "member-churn.yaml");
@@ -33,7 +33,7 @@ final class SparkSample {
     }
 
     /** The local Spark every Quern connection in these tests opens its own session of. */
-    static synchronized SparkSession spark() {
+    public static synchronized SparkSession spark() {
         if (session == null) {
             session = SparkSession.builder().master("local[2]").appName("quern-tests")
                     .config("spark.ui.enabled", "false")
