@@ -71,6 +71,27 @@ public final class SparkSample {
         return parquet;
     }
 
+    /** The same tables as CSV files with a header line, as DuckDB's COPY writes them. */
+    static synchronized Path csvFolder() {
+        Path parquetFolder = parquetFolder();
+        Path out = parquetFolder.resolveSibling("csv");
+        if (!Files.isDirectory(out)) {
+            try (Connection c = DriverManager.getConnection("jdbc:duckdb:", DuckDb.offline());
+                 Statement s = c.createStatement()) {
+                Files.createDirectories(out);
+                for (String table : TABLES) {
+                    s.execute("copy (select * from read_parquet('" + parquetFolder.resolve(table + ".parquet")
+                            + "')) to '" + out.resolve(table + ".csv") + "' (header)");
+                }
+            } catch (IOException e) {
+                throw new UncheckedIOException(e);
+            } catch (SQLException e) {
+                throw new IllegalStateException("exporting the sample to CSV failed", e);
+            }
+        }
+        return out;
+    }
+
     static String source() {
         return "spark:parquet:" + parquetFolder();
     }
