@@ -119,6 +119,7 @@ final class SparkConnection implements InvocationHandler {
                 new Class<?>[] {Statement.class}, new InvocationHandler() {
                     private ResultSet last;
                     private boolean statementClosed;
+                    private int fetchSize;
 
                     @Override
                     public Object invoke(Object proxy, Method method, Object[] args) throws Throwable {
@@ -126,11 +127,11 @@ final class SparkConnection implements InvocationHandler {
                         switch (name) {
                             case "executeQuery":
                                 open();
-                                last = query((Statement) proxy, (String) args[0]);
+                                last = query((Statement) proxy, (String) args[0], fetchSize > 0);
                                 return last;
                             case "execute":
                                 open();
-                                last = query((Statement) proxy, (String) args[0]);
+                                last = query((Statement) proxy, (String) args[0], fetchSize > 0);
                                 return true;
                             case "getResultSet":
                                 return last;
@@ -143,11 +144,16 @@ final class SparkConnection implements InvocationHandler {
                             case "executeUpdate", "executeLargeUpdate", "addBatch", "executeBatch",
                                  "executeLargeBatch":
                                 throw new SQLException("Quern's Spark connection is read-only: " + name + " refused");
-                            case "setFetchSize", "setQueryTimeout", "setMaxRows", "setLargeMaxRows",
+                            case "setFetchSize":
+                                fetchSize = (Integer) args[0];
+                                return null;
+                            case "setQueryTimeout", "setMaxRows", "setLargeMaxRows",
                                  "setEscapeProcessing", "setPoolable", "closeOnCompletion", "setFetchDirection",
                                  "clearWarnings", "setMaxFieldSize", "cancel":
                                 return null;
-                            case "getFetchSize", "getQueryTimeout", "getMaxRows", "getMaxFieldSize":
+                            case "getFetchSize":
+                                return fetchSize;
+                            case "getQueryTimeout", "getMaxRows", "getMaxFieldSize":
                                 return 0;
                             case "getWarnings":
                                 return null;
@@ -178,7 +184,13 @@ final class SparkConnection implements InvocationHandler {
                 });
     }
 
-    private ResultSet query(Statement statement, String sql) throws SQLException {
+    /**
+     * Runs a query. With a fetch size (JDBC's hint that a result is large: the matrix writer sets one) the
+     * rows are streamed with {@code toLocalIterator}, one Spark job per partition, so the driver holds one
+     * partition at a time; otherwise they are collected in one job, which for the many small queries of the
+     * schema, rules and audit stages is several times faster.
+     */
+    private ResultSet query(Statement statement, String sql, boolean stream) throws SQLException {
         ReadOnlyGuard.check(session, sql);
         Dataset<Row> result;
         try {
@@ -192,7 +204,7 @@ final class SparkConnection implements InvocationHandler {
         }
         Iterator<Row> rows;
         try {
-            rows = result.toLocalIterator();
+            rows = stream ? result.toLocalIterator() : result.collectAsList().iterator();
         } catch (RuntimeException e) {
             throw new SQLException(e.getMessage(), e);
         }
