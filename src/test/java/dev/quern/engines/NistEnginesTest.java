@@ -72,7 +72,7 @@ class NistEnginesTest {
         check(matrix(target, db), 5, 100, 299.852400000000, 0.0790105478190518, 1e-9);
     }
 
-    private static void check(Matrix matrix, int sensor, int n, double certifiedMean, double certifiedSd,
+    static void check(Matrix matrix, int sensor, int n, double certifiedMean, double certifiedSd,
                               double relative) {
         var row = matrix.row(Integer.toString(sensor), "2025-01-31");
         assertEquals(Integer.toString(n), row.get("readings_count_365d"));

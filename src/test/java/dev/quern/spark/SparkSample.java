@@ -51,24 +51,35 @@ public final class SparkSample {
         if (parquet == null) {
             try {
                 Path folder = Files.createDirectories(Path.of("target", "spark-tests"));
-                Path work = Files.createTempDirectory(folder, "sample-");
-                Path duckdb = work.resolve("sample.duckdb");
-                DatabaseLoader.load(SAMPLE, "jdbc:duckdb:" + duckdb, false, Progress.SILENT);
-                Path out = Files.createDirectories(work.resolve("parquet"));
-                try (Connection c = DriverManager.getConnection("jdbc:duckdb:" + duckdb, DuckDb.offline());
-                     Statement s = c.createStatement()) {
-                    for (String table : TABLES) {
-                        s.execute("copy " + table + " to '" + out.resolve(table + ".parquet") + "' (format parquet)");
-                    }
-                }
-                parquet = out.toAbsolutePath();
+                parquet = parquetCopy(SAMPLE, TABLES, Files.createTempDirectory(folder, "sample-"));
             } catch (IOException e) {
                 throw new UncheckedIOException(e);
-            } catch (SQLException e) {
-                throw new IllegalStateException("exporting the sample to Parquet failed", e);
             }
         }
         return parquet;
+    }
+
+    /**
+     * {@code tables} of a SQLite file as {@code TABLE.parquet} files in {@code work}/parquet, typed as
+     * {@code quern load} types them (by way of a DuckDB file in {@code work}).
+     */
+    public static Path parquetCopy(Path sqlite, List<String> tables, Path work) {
+        try {
+            Path duckdb = work.resolve("copy.duckdb");
+            DatabaseLoader.load(sqlite, "jdbc:duckdb:" + duckdb, false, Progress.SILENT);
+            Path out = Files.createDirectories(work.resolve("parquet"));
+            try (Connection c = DriverManager.getConnection("jdbc:duckdb:" + duckdb, DuckDb.offline());
+                 Statement s = c.createStatement()) {
+                for (String table : tables) {
+                    s.execute("copy " + table + " to '" + out.resolve(table + ".parquet") + "' (format parquet)");
+                }
+            }
+            return out.toAbsolutePath();
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        } catch (SQLException e) {
+            throw new IllegalStateException("exporting " + sqlite + " to Parquet failed", e);
+        }
     }
 
     /** The same tables as CSV files with a header line, as DuckDB's COPY writes them. */
