@@ -21,6 +21,9 @@ import java.util.Map;
  */
 public final class OutputFolder implements AutoCloseable {
 
+    /** How the name of a folder still being written ends. */
+    public static final String PENDING_FOLDER = ".pending";
+
     private final Path folder;
     private final Map<String, Path> pending = new LinkedHashMap<>();
     private boolean committed;
@@ -65,10 +68,12 @@ public final class OutputFolder implements AutoCloseable {
 
     /**
      * A path, not yet created, that becomes the folder {@code name} on commit: for writers that make a
-     * folder of part files themselves (Spark's Parquet writer refuses a folder that exists).
+     * folder of part files themselves (Spark's Parquet writer refuses a folder that exists). Unlike the
+     * files, it is not hidden: Spark's readers skip a path whose name starts with '.' or '_' ("All paths
+     * were ignored"), and the build reads the folder back.
      */
     public Path reserveFolder(String name) {
-        Path temp = folder.resolve("." + name + "." + java.util.UUID.randomUUID() + ".tmp");
+        Path temp = folder.resolve(name + "." + java.util.UUID.randomUUID() + PENDING_FOLDER);
         pending.put(name, temp);
         return temp;
     }
