@@ -17,7 +17,7 @@ import org.junit.jupiter.api.Test;
 /**
  * quern.jar holds no Spark: loaded with the test class path less Spark and Scala (as {@code java -jar} runs
  * it), a {@code spark:} source stops with a usage error that says how to run it, and a SQLite source still
- * opens.
+ * opens and builds.
  */
 class WithoutSparkTest {
 
@@ -40,6 +40,16 @@ class WithoutSparkTest {
             Object sqlite = open(withoutSpark, "jdbc:sqlite:" + SparkSample.SAMPLE);
             assertTrue(sqlite instanceof java.sql.Connection, "SQLite opens without Spark: " + sqlite);
             ((java.sql.Connection) sqlite).close();
+
+            // The whole build, whose code also names the Spark writer, runs on SQLite without Spark.
+            Class<?> quern = withoutSpark.loadClass("dev.quern.Quern");
+            Class<?> progress = withoutSpark.loadClass("dev.quern.run.Progress");
+            Object demo = quern.getMethod("load", Path.class).invoke(null, SparkSample.DEMO);
+            Object recipe = quern.getMethod("withSource", String.class).invoke(demo, "jdbc:sqlite:" + SparkSample.SAMPLE);
+            Path out = java.nio.file.Files.createTempDirectory(
+                    java.nio.file.Files.createDirectories(Path.of("target", "spark-tests")), "without-spark-");
+            quern.getMethod("build", Path.class, progress).invoke(recipe, out, progress.getField("SILENT").get(null));
+            assertTrue(java.nio.file.Files.isRegularFile(out.resolve("matrix.csv")), "the SQLite build wrote its matrix");
         }
     }
 
