@@ -87,6 +87,20 @@ class SparkSqlTest {
         assertEquals(before, fingerprints(folder), "no file of the source changed");
     }
 
+    /** Spark is only ever read: {@code quern load} refuses it as a target before touching anything. */
+    @Test
+    void loadRefusesSparkAsATarget() throws IOException {
+        Path target = Files.createTempDirectory(Files.createDirectories(Path.of("target", "spark-tests")), "load-");
+        StringWriter err = new StringWriter();
+        int code = Main.run(new PrintWriter(new StringWriter(), true), new PrintWriter(err, true),
+                "load", SparkSample.SAMPLE.toString(), "--to", "spark:parquet:" + target);
+        assertEquals(2, code, err.toString());
+        assertTrue(err.toString().contains("Spark, which Quern only reads"), err.toString());
+        try (Stream<Path> files = Files.list(target)) {
+            assertEquals(List.of(), files.toList(), "nothing was written");
+        }
+    }
+
     private static Map<String, String> fingerprints(Path folder) throws IOException {
         Map<String, String> sums = new TreeMap<>();
         try (Stream<Path> files = Files.walk(folder)) {
