@@ -28,10 +28,12 @@ import dev.quern.run.OutputFolder;
 import dev.quern.run.ParquetWriter;
 import dev.quern.run.Progress;
 import dev.quern.run.RunResult;
+import dev.quern.schema.Engine;
 import dev.quern.schema.SchemaReader;
 import dev.quern.schema.Source;
 import dev.quern.schema.SourceSchema;
 import dev.quern.sql.BlockShape;
+import dev.quern.spark.SparkMatrix;
 import dev.quern.sql.CompiledQuery;
 import dev.quern.sql.SqlCompiler;
 import java.io.IOException;
@@ -153,6 +155,21 @@ public final class Quern {
         }
     }
 
+    /**
+     * Compiles for {@code target} rather than for the source's own engine (Spark, for a recipe developed on a
+     * SQLite extract): the catalogue and the time storage are read from the source, and the query is rendered
+     * for {@code target}. Times the source keeps as ISO text are compared as text, which also holds for DATE
+     * and TIMESTAMP columns; the query a build on {@code target} runs is {@link #compile()} with that source.
+     */
+    public Compilation compileFor(Engine target) {
+        Source source = source();
+        try (Connection connection = source.open()) {
+            return compile(source, connection, new LinkedHashMap<>(), target);
+        } catch (SQLException e) {
+            throw QuernException.data("closing the source failed: " + e.getMessage(), e);
+        }
+    }
+
     /** Builds the modelling table and its reports into {@code folder}; all or nothing. */
     public BuildSummary build(Path folder, Progress progress) {
         return build(folder, progress, Optional.empty());
@@ -181,6 +198,15 @@ public final class Quern {
             List<LateRows.Query> lateQueries = LateRows.of(compilation.plan());
             Map<String, Long> late = RuleRunner.countLate(lateQueries, connection);
             timings.put("rules", Duration.ofNanos(System.nanoTime() - rulesStarted));
+            CompiledQuery matrixQuery = compilation.query();
+            if (source.engine() == Engine.SPARK) {
+                // Spark writes the matrix itself, on the cluster; the stages below read its files back.
+                progress.stage("building " + MATRIX_PARQUET + " with Spark");
+                long sparkStarted = System.nanoTime();
+                matrixQuery = SparkMatrix.write(compilation.query(), connection, out.reserveFolder(MATRIX_PARQUET));
+                timings.put("spark", Duration.ofNanos(System.nanoTime() - sparkStarted));
+            }
+            CompiledQuery rows = matrixQuery;
             progress.stage("building " + MATRIX);
             RunResult run;
             Plan table = compilation.plan();
@@ -194,15 +220,17 @@ public final class Quern {
             };
             if (encoding.isEmpty() && frozen.isEmpty()) {
                 try (Writer matrix = out.open(MATRIX)) {
-                    run = MatrixWriter.write(compilation.query(), connection, matrix, progress);
+                    run = MatrixWriter.write(rows, connection, matrix, progress);
                 }
                 audit.accept(out.pending(MATRIX));
             } else {
                 // The encode stage: the raw matrix goes to a scratch file, then is fitted and encoded into MATRIX.
                 Encoder.Encoded encoded = Encoder.build(encoding, frozen, recipeSha256, out,
-                        raw -> MatrixWriter.write(compilation.query(), connection, raw, progress), audit, progress);
+                        raw -> MatrixWriter.write(rows, connection, raw, progress), audit, progress);
                 run = encoded.run();
                 table = encoded.plan();
+                // Spark's Parquet holds the raw columns; the matrix of an encoding recipe is the encoded CSV.
+                out.discard(MATRIX_PARQUET);
                 timings.put("encode", encoded.time());
             }
             timings.put("query", run.queryTime());
@@ -213,6 +241,7 @@ public final class Quern {
             if (leaks.blocked()) {
                 // The audit is the one output of a blocked build: no matrix, and nothing that describes one.
                 out.discard(MATRIX);
+                out.discard(MATRIX_PARQUET);
                 out.discard(Encoder.FITTED);
                 out.commit();
                 throw blockedBy(leaks, folder);
@@ -239,9 +268,12 @@ public final class Quern {
             out.write(REPORT, HtmlReport.render(table, run, lineage,
                     new HtmlReport.Facts(recipe.file(), recipeSha256, Version.current(), source.display(), builtAt),
                     drift, Thresholds.DEFAULT));
+            boolean writtenBySpark = source.engine() == Engine.SPARK && encoding.isEmpty() && frozen.isEmpty();
             if (format == MatrixFormat.PARQUET) {
-                progress.stage("writing " + format.fileName());
-                ParquetWriter.convert(out.pending(MATRIX), table.columns(), out.reserve(format.fileName()));
+                if (!writtenBySpark) {
+                    progress.stage("writing " + format.fileName());
+                    ParquetWriter.convert(out.pending(MATRIX), table.columns(), out.reserve(format.fileName()));
+                }
                 out.discard(MATRIX);
             }
             List<Path> files = out.commit();
@@ -299,8 +331,13 @@ public final class Quern {
     }
 
     private Compilation compile(Source source, Connection connection, Map<String, Duration> timings) {
+        return compile(source, connection, timings, source.engine());
+    }
+
+    private Compilation compile(Source source, Connection connection, Map<String, Duration> timings, Engine target) {
         long t0 = System.nanoTime();
-        SourceSchema schema = new SchemaReader(connection, source.engine()).read(recipe);
+        SourceSchema read = new SchemaReader(connection, source.engine()).read(recipe);
+        SourceSchema schema = new SourceSchema(target, read.tables(), read.times());
         long t1 = System.nanoTime();
         Plan planned = Planner.plan(recipe, schema);
         Plan plan = cutoffs.map(planned::withCutoffs).orElse(planned);

@@ -34,6 +34,10 @@ public final class QuernException extends RuntimeException {
         return new QuernException(Failure.RECIPE, List.of(Diagnostic.at(at, message)));
     }
 
+    public static QuernException usage(String message) {
+        return new QuernException(Failure.USAGE, List.of(Diagnostic.at(Position.NONE, message)));
+    }
+
     public static QuernException data(String message) {
         return new QuernException(Failure.DATA, List.of(Diagnostic.at(Position.NONE, message)));
     }

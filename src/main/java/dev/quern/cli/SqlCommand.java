@@ -1,8 +1,12 @@
 package dev.quern.cli;
 
+import dev.quern.QuernException;
+import dev.quern.schema.Engine;
+import java.util.Arrays;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /** {@code quern sql}: the compiled query, for review or to run by hand. */
@@ -18,12 +22,23 @@ final class SqlCommand implements Callable<Integer> {
             description = "Say above the SQL, as comments, which shape each block takes and why.")
     boolean explain;
 
+    @Option(names = "--engine", paramLabel = "ENGINE",
+            description = "Render for this engine instead of the source's (sqlite, postgresql, mariadb, mysql, duckdb,"
+                    + " spark). Tables, columns and how times are kept are still read from the source: times kept"
+                    + " as text there are compared as ISO text, which also holds where the engine keeps them as"
+                    + " DATE or TIMESTAMP.")
+    String engine;
+
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
     @Override
     public Integer call() {
-        var query = recipe.load().compile().query();
+        var quern = recipe.load();
+        var compiled = engine == null ? quern.compile() : quern.compileFor(Engine.forLabel(engine).orElseThrow(
+                () -> QuernException.usage("--engine " + engine + " is not an engine Quern renders for; use one of "
+                        + Arrays.stream(Engine.values()).map(Engine::label).toList())));
+        var query = compiled.query();
         var out = spec.commandLine().getOut();
         out.print((explain ? query.explain() + "\n" : "") + query.script());
         out.flush();

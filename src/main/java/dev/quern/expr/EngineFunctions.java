@@ -26,6 +26,7 @@ abstract class EngineFunctions {
             case POSTGRES -> new PostgresFunctions();
             case DUCKDB -> new DuckDbFunctions();
             case MARIADB, MYSQL -> new MariaDbFunctions();
+            case SPARK -> new SparkFunctions();
         };
     }
 

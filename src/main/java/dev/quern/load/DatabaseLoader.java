@@ -67,6 +67,11 @@ public final class DatabaseLoader {
             throw QuernException.data("the target " + target.display() + " is SQLite: copy the file instead;"
                     + " load into PostgreSQL, MariaDB, MySQL or DuckDB");
         }
+        if (target.engine() == Engine.SPARK) {
+            throw QuernException.usage("the target " + target.display() + " is Spark, which Quern only reads:"
+                    + " export the tables as Parquet files (for instance with DuckDB's COPY) and point"
+                    + " spark:parquet:FOLDER at them");
+        }
         this.dialect = LoadTarget.of(target.engine());
     }
 

@@ -20,6 +20,7 @@ abstract class LoadTarget {
             case MYSQL -> new MariaDb(engine, "utf8mb4_bin");
             case DUCKDB -> new DuckDb();
             case SQLITE -> throw new IllegalArgumentException("a SQLite target is a copy of the file");
+            case SPARK -> throw new IllegalArgumentException("Spark is read, never loaded");
         };
     }
 

@@ -21,6 +21,9 @@ import java.util.Map;
  */
 public final class OutputFolder implements AutoCloseable {
 
+    /** How the name of a folder still being written ends. */
+    public static final String PENDING_FOLDER = ".pending";
+
     private final Path folder;
     private final Map<String, Path> pending = new LinkedHashMap<>();
     private boolean committed;
@@ -63,6 +66,18 @@ public final class OutputFolder implements AutoCloseable {
         }
     }
 
+    /**
+     * A path, not yet created, that becomes the folder {@code name} on commit: for writers that make a
+     * folder of part files themselves (Spark's Parquet writer refuses a folder that exists). Unlike the
+     * files, it is not hidden: Spark's readers skip a path whose name starts with '.' or '_' ("All paths
+     * were ignored"), and the build reads the folder back.
+     */
+    public Path reserveFolder(String name) {
+        Path temp = folder.resolve(name + "." + java.util.UUID.randomUUID() + PENDING_FOLDER);
+        pending.put(name, temp);
+        return temp;
+    }
+
     /** Writes a whole text output. */
     public void write(String name, String text) {
         try (Writer w = open(name)) {
@@ -91,7 +106,7 @@ public final class OutputFolder implements AutoCloseable {
             return;
         }
         try {
-            Files.deleteIfExists(temp);
+            delete(temp);
         } catch (IOException e) {
             throw QuernException.output("cannot remove the temporary file " + temp + ": " + e.getMessage(), e);
         }
@@ -103,6 +118,10 @@ public final class OutputFolder implements AutoCloseable {
         try {
             for (Map.Entry<String, Path> e : pending.entrySet()) {
                 Path target = folder.resolve(e.getKey());
+                if (Files.isDirectory(e.getValue()) || Files.isDirectory(target)) {
+                    // A folder cannot replace another in one move: an earlier build's folder goes first.
+                    delete(target);
+                }
                 try {
                     Files.move(e.getValue(), target, StandardCopyOption.ATOMIC_MOVE,
                             StandardCopyOption.REPLACE_EXISTING);
@@ -127,11 +146,22 @@ public final class OutputFolder implements AutoCloseable {
         }
         for (Path temp : pending.values()) {
             try {
-                Files.deleteIfExists(temp);
+                delete(temp);
             } catch (IOException e) {
                 throw new UncheckedIOException("cannot remove the temporary file " + temp, e);
             }
         }
         pending.clear();
+    }
+
+    private static void delete(Path path) throws IOException {
+        if (Files.isDirectory(path, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+            try (java.util.stream.Stream<Path> inside = Files.list(path)) {
+                for (Path p : inside.toList()) {
+                    delete(p);
+                }
+            }
+        }
+        Files.deleteIfExists(path);
     }
 }

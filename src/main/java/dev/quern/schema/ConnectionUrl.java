@@ -85,6 +85,14 @@ public final class ConnectionUrl {
         return position;
     }
 
+    /**
+     * The URL as written: it names variables but holds no credential (one written out is refused above), so
+     * another source can be opened from it with the same variables.
+     */
+    public String written() {
+        return written;
+    }
+
     /** The URL as written, with any credential in it masked: safe to print. */
     public String display() {
         return display(written);
@@ -123,6 +131,22 @@ public final class ConnectionUrl {
      * FINE: "Connecting with URL"), and a secret must not follow it there.
      */
     public Connection connect(Properties properties) throws SQLException {
+        DriverArguments arguments = driverArguments(properties);
+        return DriverManager.getConnection(arguments.url(), arguments.properties());
+    }
+
+    /**
+     * What a driver is handed: the URL without its credential parameters, expanded, and those credentials as
+     * properties along with {@code properties}. For the driver (or Spark's JDBC reader) only: never print it.
+     */
+    public record DriverArguments(String url, Properties properties) {
+        @Override
+        public String toString() {
+            return "driver arguments (not shown: they may hold a credential)";
+        }
+    }
+
+    public DriverArguments driverArguments(Properties properties) {
         expand(); // stops, naming it, if a variable is not set
         Properties all = new Properties();
         all.putAll(properties);
@@ -140,7 +164,15 @@ public final class ConnectionUrl {
         }
         rest.append(written.substring(from));
         String withoutSecrets = rest.toString().replaceAll("([?;&])[&;]+", "$1").replaceAll("[?&;]+$", "");
-        return DriverManager.getConnection(of(withoutSecrets, position, role, environment).expand(), all);
+        return new DriverArguments(of(withoutSecrets, position, role, environment).expand(), all);
+    }
+
+    /** The URL written after a prefix of its own ({@code spark:jdbc:} names a JDBC URL), with the same environment. */
+    public ConnectionUrl inner(String prefix) {
+        if (!written.regionMatches(true, 0, prefix, 0, prefix.length())) {
+            throw new IllegalArgumentException(display() + " does not start with " + prefix);
+        }
+        return of(written.substring(prefix.length()), position, role, environment);
     }
 
     /**

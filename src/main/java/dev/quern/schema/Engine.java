@@ -6,6 +6,7 @@ import org.jooq.DSLContext;
 import org.jooq.SQLDialect;
 import org.jooq.conf.RenderQuotedNames;
 import org.jooq.conf.Settings;
+import org.jooq.conf.StatementType;
 import org.jooq.impl.DSL;
 
 /** The database engines Quern runs on, recognised from a JDBC URL. */
@@ -14,7 +15,15 @@ public enum Engine {
     POSTGRES("postgresql", "jdbc:postgresql:", SQLDialect.POSTGRES),
     MARIADB("mariadb", "jdbc:mariadb:", SQLDialect.MARIADB),
     MYSQL("mysql", "jdbc:mysql:", SQLDialect.MYSQL),
-    DUCKDB("duckdb", "jdbc:duckdb:", SQLDialect.DUCKDB);
+    DUCKDB("duckdb", "jdbc:duckdb:", SQLDialect.DUCKDB),
+    /**
+     * Spark SQL has no jOOQ dialect. DuckDB's rendering is the closest Spark parses: {@code double} and
+     * {@code varchar(n)} casts, {@code DATE '...'} literals, {@code nulls last}, {@code filter (where ...)};
+     * PostgreSQL's {@code double precision} is a parse error in Spark 4.0. Its double-quoted names need
+     * {@code spark.sql.ansi.doubleQuotedIdentifiers=true}, which Quern's Spark connection sets. What else
+     * differs is in {@code sql.SparkSql} and {@code expr.SparkFunctions}.
+     */
+    SPARK("spark", "spark:", SQLDialect.DUCKDB);
 
     /** Held so that the logging configuration below is not collected with the logger. */
     private static final java.util.logging.Logger JOOQ_LOG = java.util.logging.Logger.getLogger("org.jooq");
@@ -60,8 +69,12 @@ public enum Engine {
         return DSL.using(connection, dialect, settings());
     }
 
-    private static Settings settings() {
+    private Settings settings() {
+        // Quern's Spark connection runs plain statements only (a SparkSession has no bind variables in JDBC's
+        // sense), so values are rendered inline there; they go through DSL.inline either way.
+        StatementType statements = this == SPARK ? StatementType.STATIC_STATEMENT : StatementType.PREPARED_STATEMENT;
         return new Settings()
+                .withStatementType(statements)
                 .withRenderQuotedNames(RenderQuotedNames.ALWAYS)
                 .withRenderSchema(false)
                 .withRenderFormatted(false)
@@ -74,6 +87,16 @@ public enum Engine {
 
     public String urlPrefix() {
         return urlPrefix;
+    }
+
+    /** The engine whose label ({@code sqlite}, {@code spark}, ...) is {@code label}, in any case. */
+    public static Optional<Engine> forLabel(String label) {
+        for (Engine e : values()) {
+            if (e.label.equalsIgnoreCase(label)) {
+                return Optional.of(e);
+            }
+        }
+        return Optional.empty();
     }
 
     public static Optional<Engine> forUrl(String url) {

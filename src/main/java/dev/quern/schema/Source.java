@@ -111,10 +111,25 @@ public final class Source {
                 case MARIADB -> readOnly(url.connect(new Properties()),
                         "set session transaction read only",
                         "set session optimizer_switch = 'split_materialized=off'");
+                case SPARK -> openSpark();
             };
         } catch (SQLException e) {
             // Driver messages may quote the URL, and the URL may hold a secret: say only what is safe.
             throw QuernException.data("cannot connect to " + display() + ": " + url.safeMessage(e), e);
+        }
+    }
+
+    /**
+     * Spark is a provided dependency: there when the jar runs under spark-submit (or in tests), absent from
+     * quern.jar. Only {@code dev.quern.spark} names Spark's classes, and it is entered only here.
+     */
+    private Connection openSpark() {
+        try {
+            return dev.quern.spark.SparkSources.open(url, baseDirectory);
+        } catch (NoClassDefFoundError e) {
+            throw QuernException.usage("the source " + display() + " needs Apache Spark, which is not on the class"
+                    + " path (missing " + e.getMessage() + "): run Quern with spark-submit --class dev.quern.cli.Main"
+                    + " quern.jar ..., or put Spark's jars on the class path");
         }
     }
 

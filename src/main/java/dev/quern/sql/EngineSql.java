@@ -21,6 +21,7 @@ abstract class EngineSql {
             case SQLITE -> new SqliteSql();
             case POSTGRES, DUCKDB -> new PostgresSql(engine);
             case MARIADB, MYSQL -> new MariaDbSql(engine);
+            case SPARK -> new SparkSql();
         };
     }
 

@@ -45,11 +45,17 @@ final class ShapeChooser {
             case POSTGRES, MARIADB, MYSQL -> new ShapeChoice(block, BlockShape.RANGE_JOIN,
                     "the engine's hash join and grouping compute every window in one pass; the ordered scan has"
                             + " not been measured on " + plan.engine().label() + " (ask for it with --shape ordered-scan)");
+            case SPARK -> new ShapeChoice(block, BlockShape.RANGE_JOIN,
+                    "Spark spreads the join and the grouping over its executors");
         };
     }
 
     /** Why the ordered scan cannot compute this block, if it cannot. */
     static Optional<String> whyNoScan(Plan plan, Block block) {
+        if (plan.engine() == Engine.SPARK) {
+            return Optional.of("on Spark an ordered scan would pull every row of the path through the driver,"
+                    + " one machine, which is what Spark is there to avoid");
+        }
         if (block.filter().map(f -> f.usesCutoff()).orElse(false)) {
             return Optional.of("the block's where uses the cutoff, which a scan over all cutoffs at once cannot"
                     + " evaluate per row");

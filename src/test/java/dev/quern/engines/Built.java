@@ -19,13 +19,13 @@ import java.util.Map;
 import java.util.Set;
 
 /** A recipe built on one engine: the build's summary and its matrix read back. */
-record Built(BuildSummary summary, Matrix matrix, Path folder) {
+public record Built(BuildSummary summary, Matrix matrix, Path folder) {
 
     /** Relative tolerance for floating values, and for standard deviations, across engines (issue 5). */
     static final double FLOAT_TOLERANCE = 1e-9;
     static final double STDDEV_TOLERANCE = 1e-8;
 
-    static Built build(Path recipe, String source, Path out) {
+    public static Built build(Path recipe, String source, Path out) {
         BuildSummary summary = Quern.load(recipe).withSource(source).build(out, Progress.SILENT);
         return new Built(summary, Matrix.read(out.resolve(Quern.MATRIX)), out);
     }
@@ -35,7 +35,7 @@ record Built(BuildSummary summary, Matrix matrix, Path folder) {
      * order; integers, text and dates exactly, floating values to {@link #FLOAT_TOLERANCE} relative
      * (standard deviations to {@link #STDDEV_TOLERANCE}).
      */
-    void assertSameMatrix(Built other, String label) {
+    public void assertSameMatrix(Built other, String label) {
         assertEquals(matrix.columns(), other.matrix.columns(), label + ": columns");
         assertEquals(matrix.rows().size(), other.matrix.rows().size(), label + ": rows");
         Set<String> floats = new HashSet<>();

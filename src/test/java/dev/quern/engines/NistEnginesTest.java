@@ -81,7 +81,7 @@ class NistEnginesTest {
         }
     }
 
-    private static void check(Matrix matrix, int sensor, int n, double certifiedMean, double certifiedSd,
+    static void check(Matrix matrix, int sensor, int n, double certifiedMean, double certifiedSd,
                               double relative) {
         var row = matrix.row(Integer.toString(sensor), "2025-01-31");
         assertEquals(Integer.toString(n), row.get("readings_count_365d"));
