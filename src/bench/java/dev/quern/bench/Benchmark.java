@@ -20,8 +20,8 @@ import org.yaml.snakeyaml.Yaml;
  *
  * <pre>{@code Benchmark PROJECT_DIR CLASS_PATH [SCALES] [SEED]}</pre>
  *
- * SCALES are millions of rides, comma-separated ({@code 1,2,4}). Every timed run is a fresh JVM with
- * {@code -Xmx256m}, timed from its main method's start to its exit.
+ * SCALES are millions of rides, comma-separated ({@code 1,2,4}; by default 1,2). Every timed run is a
+ * fresh JVM with {@code -Xmx256m}, timed from its main method's start to its exit.
  */
 public final class Benchmark {
 
@@ -45,7 +45,7 @@ public final class Benchmark {
 
     public static void main(String[] args) throws IOException {
         Path project = Path.of(args[0]).toAbsolutePath();
-        double[] scales = Arrays.stream((args.length > 2 ? args[2] : "1,2,4").split(","))
+        double[] scales = Arrays.stream((args.length > 2 ? args[2] : "1,2").split(","))
                 .map(String::strip).filter(s -> !s.isEmpty()).mapToDouble(Double::parseDouble).toArray();
         long seed = args.length > 3 ? Long.parseLong(args[3]) : dev.quern.sample.CycleClubGenerator.SHIPPED_SEED;
         List<Measurement> results = new Benchmark(project, args[1]).run(scales, seed);
