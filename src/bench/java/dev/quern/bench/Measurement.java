@@ -1,5 +1,7 @@
 package dev.quern.bench;
 
+import java.util.Collections;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 
@@ -23,7 +25,8 @@ record Measurement(
 
     Measurement {
         differences = List.copyOf(differences);
-        quernTimings = Map.copyOf(quernTimings);
+        // In provenance's order (schema, compile, rules, audit, query, write): the order a build runs them.
+        quernTimings = Collections.unmodifiableMap(new LinkedHashMap<>(quernTimings));
     }
 
     double ridesPerSecond() {
