@@ -1,0 +1,74 @@
+package dev.quern.bench;
+
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Properties;
+
+/**
+ * Starts a fresh JVM for each timed run, so no run profits from another's warm caches or JIT, and the
+ * heap limit applies to that run alone. Its output goes to a log file beside the run's results.
+ */
+final class ChildJvm {
+
+    private final String classPath;
+
+    ChildJvm(String classPath) {
+        this.classPath = classPath;
+    }
+
+    /** What {@link Measured} reported, with the child's exit code; elapsed and heap are NaN when it wrote none. */
+    record Outcome(int exitCode, double elapsedSeconds, double peakHeapMb, Path log) {
+        boolean ok() {
+            return exitCode == 0;
+        }
+    }
+
+    Outcome run(String maxHeap, Path log, String mainClass, List<String> args) {
+        Path report = log.resolveSibling(log.getFileName() + ".measured");
+        List<String> command = new ArrayList<>(List.of(javaBinary(), "-Xmx" + maxHeap,
+                "-Dorg.jooq.no-logo=true", "-Dorg.jooq.no-tips=true", "-cp", classPath,
+                Measured.class.getName(), report.toString(), mainClass));
+        command.addAll(args);
+        try {
+            Files.createDirectories(log.getParent());
+            Files.deleteIfExists(report);
+            Process process = new ProcessBuilder(command).redirectErrorStream(true)
+                    .redirectOutput(log.toFile()).start();
+            int exit = process.waitFor();
+            Properties measured = new Properties();
+            if (Files.exists(report)) {
+                try (var in = Files.newBufferedReader(report)) {
+                    measured.load(in);
+                }
+            }
+            return new Outcome(exit, number(measured, "elapsed_s"), number(measured, "peak_heap_mb"), log);
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IllegalStateException("interrupted while waiting for " + mainClass, e);
+        }
+    }
+
+    /** Stops the benchmark when a preparation step (generating, loading) failed: nothing after it can be timed. */
+    Outcome require(Outcome outcome) {
+        if (!outcome.ok()) {
+            throw new IllegalStateException("a step failed with exit code " + outcome.exitCode() + "; see "
+                    + outcome.log());
+        }
+        return outcome;
+    }
+
+    private static double number(Properties p, String key) {
+        String value = p.getProperty(key);
+        return value == null ? Double.NaN : Double.parseDouble(value);
+    }
+
+    private static String javaBinary() {
+        return Path.of(System.getProperty("java.home"), "bin", "java").toString();
+    }
+}
