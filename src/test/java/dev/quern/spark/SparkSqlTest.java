@@ -47,7 +47,8 @@ class SparkSqlTest {
                 "sql", SparkSample.DEMO.toString());
         assertNotEquals(forSqlite.toString(), out.toString(), "--engine renders for Spark, not for the source");
 
-        List<String> expected = Quern.load(SparkSample.DEMO).compile().query().columns();
+        List<String> expected = Quern.load(SparkSample.DEMO).compile().plan().columns().stream()
+                .map(dev.quern.plan.OutputColumn::name).toList();
         try (Connection c = Quern.load(SparkSample.DEMO).withSource(SparkSample.source()).source().open()) {
             var analysed = SparkConnection.session(c).sql(sql).queryExecution().analyzed();
             List<String> columns = CollectionConverters.asJava(analysed.output()).stream().map(a -> a.name()).toList();
