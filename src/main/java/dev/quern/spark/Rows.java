@@ -80,17 +80,11 @@ final class Rows implements InvocationHandler {
                 return ResultSet.CONCUR_READ_ONLY;
             case "getHoldability":
                 return ResultSet.CLOSE_CURSORS_AT_COMMIT;
-            case "unwrap":
-                throw new SQLException("not a wrapper");
-            case "isWrapperFor":
-                return false;
-            case "hashCode":
-                return System.identityHashCode(proxy);
-            case "equals":
-                return proxy == args[0];
-            case "toString":
-                return "Spark rows";
             default:
+                Object common = ObjectMethods.answer(name, proxy, args, "Spark rows");
+                if (common != ObjectMethods.NOT_COMMON) {
+                    return common;
+                }
                 if (name.startsWith("get") && args != null && args.length >= 1) {
                     return read(name, index(args[0]), args.length > 1 ? args[1] : null);
                 }

@@ -84,17 +84,11 @@ final class SparkConnection implements InvocationHandler {
             case "close":
                 close();
                 return null;
-            case "unwrap":
-                throw new SQLException("not a wrapper");
-            case "isWrapperFor":
-                return false;
-            case "hashCode":
-                return System.identityHashCode(proxy);
-            case "equals":
-                return proxy == args[0];
-            case "toString":
-                return "Quern's Spark connection";
             default:
+                Object common = ObjectMethods.answer(name, proxy, args, "Quern's Spark connection");
+                if (common != ObjectMethods.NOT_COMMON) {
+                    return common;
+                }
                 throw new SQLFeatureNotSupportedException("Quern's Spark connection does not support " + name
                         + " (it runs plain read-only queries)");
         }
@@ -166,17 +160,11 @@ final class SparkConnection implements InvocationHandler {
                                 return statementClosed;
                             case "isPoolable", "isCloseOnCompletion":
                                 return false;
-                            case "unwrap":
-                                throw new SQLException("not a wrapper");
-                            case "isWrapperFor":
-                                return false;
-                            case "hashCode":
-                                return System.identityHashCode(proxy);
-                            case "equals":
-                                return proxy == args[0];
-                            case "toString":
-                                return "Quern's Spark statement";
                             default:
+                                Object common = ObjectMethods.answer(name, proxy, args, "Quern's Spark statement");
+                                if (common != ObjectMethods.NOT_COMMON) {
+                                    return common;
+                                }
                                 throw new SQLFeatureNotSupportedException(
                                         "Quern's Spark statement does not support " + name);
                         }
