@@ -7,6 +7,7 @@ import java.time.LocalDateTime;
 import java.time.format.DateTimeFormatter;
 import java.util.List;
 import java.util.OptionalLong;
+import org.jooq.Condition;
 import org.jooq.DataType;
 import org.jooq.Field;
 import org.jooq.impl.DSL;
@@ -94,9 +95,27 @@ abstract class EngineFunctions {
      * SQLite's multi-argument min() and max(), and MySQL's and MariaDB's least() and greatest().
      */
     Field<Object> extreme(boolean greatest, List<Field<Object>> arguments) {
+        return plainExtreme(greatest, arguments);
+    }
+
+    private static Field<Object> plainExtreme(boolean greatest, List<Field<Object>> arguments) {
         Field<Object> first = arguments.get(0);
         Field<?>[] rest = arguments.subList(1, arguments.size()).toArray(Field<?>[]::new);
         return greatest ? DSL.greatest(first, rest) : DSL.least(first, rest);
+    }
+
+    /**
+     * greatest() or least() that is null when any argument is, for engines whose own skip nulls. The guard
+     * names each argument twice, which {@link SqlSize} accounts for.
+     */
+    final Field<Object> extremeOfAll(boolean greatest, List<Field<Object>> arguments) {
+        Condition allPresent = DSL.and(arguments.stream().map(Field::isNotNull).toList());
+        return DSL.when(allPresent, plainExtreme(greatest, arguments));
+    }
+
+    /** The date of a time of the given type: a timestamp's date, a date as it is. */
+    final Field<Object> asDate(Field<Object> time, ExprType type) {
+        return type == ExprType.TIMESTAMP ? dateOf(time) : time;
     }
 
     static DataType<?> dataType(ExprType type) {

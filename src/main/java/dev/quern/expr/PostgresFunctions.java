@@ -3,7 +3,6 @@ package dev.quern.expr;
 import java.math.BigDecimal;
 import java.util.List;
 import java.util.OptionalLong;
-import org.jooq.Condition;
 import org.jooq.Field;
 import org.jooq.impl.DSL;
 
@@ -49,17 +48,9 @@ class PostgresFunctions extends EngineFunctions {
         return template("({0} - {1})", asDate(to, toType), asDate(from, fromType));
     }
 
-    /**
-     * greatest() and least() skip nulls here (and in DuckDB): guarded, so that any null argument gives
-     * null. The guard names each argument twice, which {@link SqlSize} accounts for.
-     */
+    /** greatest() and least() skip nulls here (and in DuckDB). */
     @Override
     Field<Object> extreme(boolean greatest, List<Field<Object>> arguments) {
-        Condition allPresent = DSL.and(arguments.stream().map(Field::isNotNull).toList());
-        return DSL.when(allPresent, super.extreme(greatest, arguments));
-    }
-
-    private Field<Object> asDate(Field<Object> time, ExprType type) {
-        return type == ExprType.TIMESTAMP ? dateOf(time) : time;
+        return extremeOfAll(greatest, arguments);
     }
 }

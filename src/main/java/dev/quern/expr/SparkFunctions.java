@@ -3,7 +3,6 @@ package dev.quern.expr;
 import java.math.BigDecimal;
 import java.util.List;
 import java.util.OptionalLong;
-import org.jooq.Condition;
 import org.jooq.Field;
 import org.jooq.impl.DSL;
 
@@ -54,14 +53,9 @@ final class SparkFunctions extends EngineFunctions {
         return super.nullOf(type);
     }
 
-    /** greatest() and least() skip nulls in Spark: guarded, so that any null argument gives null. */
+    /** greatest() and least() skip nulls in Spark. */
     @Override
     Field<Object> extreme(boolean greatest, List<Field<Object>> arguments) {
-        Condition allPresent = DSL.and(arguments.stream().map(Field::isNotNull).toList());
-        return DSL.when(allPresent, super.extreme(greatest, arguments));
-    }
-
-    private Field<Object> asDate(Field<Object> time, ExprType type) {
-        return type == ExprType.TIMESTAMP ? dateOf(time) : time;
+        return extremeOfAll(greatest, arguments);
     }
 }
