@@ -121,7 +121,8 @@ public final class Source {
 
     /**
      * Spark is a provided dependency: there when the jar runs under spark-submit (or in tests), absent from
-     * quern.jar. Only {@code dev.quern.spark} names Spark's classes, and it is entered only here.
+     * quern.jar. Only {@code dev.quern.spark} names Spark's classes, and it is entered only for a Spark source:
+     * here, and in {@code Quern.build} to have Spark write the matrix.
      */
     private Connection openSpark() {
         try {
