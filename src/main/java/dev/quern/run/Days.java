@@ -19,10 +19,21 @@ final class Days {
         return day.getYear() * 10_000 + day.getMonthValue() * 100 + day.getDayOfMonth();
     }
 
-    /** The day an engine returned for a row: ISO text, a date, or a time whose date is the day. */
+    /**
+     * The day an engine returned for a row: ISO text, a date, a time whose date is the day, or the number
+     * {@code yyyymmdd} an engine computed for it.
+     */
     static int of(Object value, String column) {
         if (value instanceof String s) {
             return ofText(s, column);
+        }
+        if (value instanceof Integer || value instanceof Long) {
+            long day = ((Number) value).longValue();
+            if (day < 1_01_01 || day > 9999_12_31L) {
+                throw QuernException.data(column + " gave the day number " + value + ", not yyyymmdd;"
+                        + " build with --shape range-join to compare it in SQL");
+            }
+            return (int) day;
         }
         if (value instanceof LocalDate d) {
             return of(d);

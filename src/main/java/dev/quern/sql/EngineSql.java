@@ -69,6 +69,14 @@ abstract class EngineSql {
         return value;
     }
 
+    /**
+     * A row's day as an ordered scan reads it: the date part of its time, or the number {@code yyyymmdd} where
+     * the driver hands dates over slowly. Ordered as the date is.
+     */
+    Field<Object> scanDay(Field<Object> time, TimeStorage storage) {
+        return dayOf(time, storage);
+    }
+
     /** The date part of a time, as a date. */
     Field<Object> dayOf(Field<Object> time, TimeStorage storage) {
         if (storage == TimeStorage.ISO_TEXT) {

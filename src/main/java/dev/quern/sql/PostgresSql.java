@@ -25,6 +25,19 @@ final class PostgresSql extends EngineSql {
         return org.jooq.impl.DSL.field("({0} - {1})", Object.class, cutoff, dayOf(time, storage));
     }
 
+    /**
+     * DuckDB's driver makes a {@code java.sql.Date} of each DATE through the JVM's calendar, which took a
+     * fifth of the ordered scan's time on a million rows (benchmark); an integer crosses as it is.
+     */
+    @Override
+    Field<Object> scanDay(Field<Object> time, TimeStorage storage) {
+        if (engine != Engine.DUCKDB) {
+            return super.scanDay(time, storage);
+        }
+        return org.jooq.impl.DSL.field("(year({0}) * 10000 + month({0}) * 100 + day({0}))", Object.class,
+                dayOf(time, storage));
+    }
+
     /** PostgreSQL sorts NULL above every value, so DESC alone would put empty values first. */
     @Override
     SortField<Object> newestFirst(Field<Object> field) {

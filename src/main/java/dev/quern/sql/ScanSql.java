@@ -46,7 +46,7 @@ final class ScanSql {
         Field<Object> time = Names.field(path.time().column());
         List<SelectField<?>> select = new ArrayList<>();
         select.add(link.as("k"));
-        select.add(engine.dayOf(time, path.time().storage()).as("d"));
+        select.add(engine.scanDay(time, path.time().storage()).as("d"));
         Map<String, Integer> inputs = new LinkedHashMap<>();
         List<Integer> positions = new ArrayList<>();
         for (Aggregate a : block.aggregates()) {

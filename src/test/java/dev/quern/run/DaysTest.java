@@ -1,0 +1,33 @@
+package dev.quern.run;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.quern.QuernException;
+import java.time.LocalDate;
+import java.time.LocalDateTime;
+import org.junit.jupiter.api.Test;
+
+/** Every form an engine hands a scanned row's day over in reads as the same yyyymmdd number. */
+class DaysTest {
+
+    @Test
+    void textDatesTimesAndDayNumbersAgree() {
+        int expected = 2025_02_28;
+        assertEquals(expected, Days.of("2025-02-28", "rides.started_at"));
+        assertEquals(expected, Days.of(LocalDate.of(2025, 2, 28), "rides.started_at"));
+        assertEquals(expected, Days.of(java.sql.Date.valueOf("2025-02-28"), "rides.started_at"));
+        assertEquals(expected, Days.of(LocalDateTime.of(2025, 2, 28, 23, 59), "rides.started_at"));
+        assertEquals(expected, Days.of(2025_02_28, "rides.started_at"));
+        assertEquals(expected, Days.of(2025_02_28L, "rides.started_at"));
+    }
+
+    @Test
+    void aNumberThatIsNoDayNumberSaysWhereItCameFrom() {
+        QuernException e = assertThrows(QuernException.class, () -> Days.of(20_250_228_1L, "rides.started_at"));
+        assertTrue(e.getMessage().contains("rides.started_at"), e.getMessage());
+        assertThrows(QuernException.class, () -> Days.of(-5, "rides.started_at"));
+        assertThrows(QuernException.class, () -> Days.of("2025/02/28", "rides.started_at"));
+    }
+}
