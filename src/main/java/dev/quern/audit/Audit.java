@@ -74,19 +74,32 @@ public final class Audit {
      * the plan's columns in order), read back streaming.
      */
     public AuditReport run(Connection connection, Path matrix) {
+        return run(readSource(connection), matrix);
+    }
+
+    /**
+     * The audit's reads of the source: the rows that fed each block and lookup, and each entity's since date.
+     * They do not depend on the matrix, so a build can take them on a connection of its own while the matrix
+     * is written.
+     */
+    public SourceEvidence readSource(Connection connection) {
+        return new SourceEvidence(new SourceRows(recipe, plan, schema, boundaries).count(connection),
+                EntitySince.read(plan.cohort(), connection, plan.engine()));
+    }
+
+    /** Runs every check, with the source's part read beforehand by {@link #readSource}; evidence serves one run. */
+    public AuditReport run(SourceEvidence evidence, Path matrix) {
         Results results = new Results();
-        new SourceChecks(recipe, plan, new SourceRows(recipe, plan, schema, boundaries).count(connection), results)
-                .run();
+        new SourceChecks(recipe, plan, evidence.counted, results).run();
         PlanChecks planChecks = new PlanChecks(recipe, plan, boundaries, results);
         planChecks.horizon();
-        EntitySince since = EntitySince.read(plan.cohort(), connection, plan.engine());
-        MatrixScan scan = new MatrixScan(matrix, plan.columns(), since, memory);
+        MatrixScan scan = new MatrixScan(matrix, plan.columns(), evidence.since, memory);
         MatrixScan.First first = scan.first();
         double auc = recipe.audit().auc().orElse(DEFAULT_AUC);
         double rho = recipe.audit().rho().orElse(DEFAULT_RHO);
         MatrixChecks matrixChecks = new MatrixChecks(plan, auc, rho, results);
         matrixChecks.screen(plan.label().map(l -> scan.screen(first)));
-        matrixChecks.cohort(first.cohort(), since.applies());
+        matrixChecks.cohort(first.cohort(), evidence.since.applies());
         planChecks.timeSplit(first.cohort().labelledPerCutoff());
         planChecks.sensitive();
         List<CheckResult> checks = new ArrayList<>(results.checks);
@@ -94,6 +107,20 @@ public final class Audit {
         List<Finding> findings = new ArrayList<>(results.findings);
         findings.sort(Comparator.comparing(Finding::check));
         return new AuditReport(plan.recipeName(), auc, rho, checks, acknowledge(findings));
+    }
+
+    /**
+     * What {@link #readSource} read. The matrix scan notes its findings in it, so it serves one
+     * {@link #run(SourceEvidence, Path)}.
+     */
+    public static final class SourceEvidence {
+        private final List<SourceRows.Counted> counted;
+        private final EntitySince since;
+
+        private SourceEvidence(List<SourceRows.Counted> counted, EntitySince since) {
+            this.counted = List.copyOf(counted);
+            this.since = since;
+        }
     }
 
     /**
