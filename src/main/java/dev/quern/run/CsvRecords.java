@@ -20,6 +20,15 @@ final class CsvRecords {
     /** Characters buffered before they go to the writer: one call per many records, not one per cell. */
     private static final int CHUNK = 1 << 16;
 
+    /** The plain characters, by code: a table, as every character of nearly every cell is looked up. */
+    private static final boolean[] PLAIN = new boolean[128];
+
+    static {
+        for (char c : "0123456789abcdefghijklmnopqrstuvwxyzABCDEFGHIJKLMNOPQRSTUVWXYZ.-+_:/ ".toCharArray()) {
+            PLAIN[c] = true;
+        }
+    }
+
     private final Writer out;
     private final StringBuilder buffer = new StringBuilder(CHUNK + 1024);
 
@@ -71,9 +80,7 @@ final class CsvRecords {
         }
         for (int i = 0; i < n; i++) {
             char c = value.charAt(i);
-            boolean ok = (c >= '0' && c <= '9') || (c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z')
-                    || c == '.' || c == '-' || c == '+' || c == '_' || c == ':' || c == '/' || c == ' ';
-            if (!ok) {
+            if (c >= PLAIN.length || !PLAIN[c]) {
                 return false;
             }
         }
