@@ -3,10 +3,8 @@ package dev.quern.audit;
 import dev.quern.QuernException;
 import dev.quern.plan.OutputColumn;
 import dev.quern.plan.Role;
-import dev.quern.run.MatrixWriter;
 import dev.quern.schema.ValueType;
 import java.io.IOException;
-import java.io.Reader;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -25,8 +23,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import java.util.TreeMap;
-import org.apache.commons.csv.CSVParser;
-import org.apache.commons.csv.CSVRecord;
+import java.util.stream.IntStream;
 
 /**
  * Reads the written matrix back, streaming, for the checks that look at its rows: the cohort (entities
@@ -94,16 +91,19 @@ final class MatrixScan {
         }
         KeyRepeats repeats = new KeyRepeats();
         long row = 0;
-        try (Reader in = Files.newBufferedReader(file, StandardCharsets.UTF_8);
-             CSVParser csv = parser(in)) {
-            for (CSVRecord r : csv) {
-                String key = r.get(keyAt);
-                String cutoff = r.get(cutoffAt);
+        // Text levels are counted only against a label, so without one the pass reads the key and cutoff alone.
+        int[] needed = labelAt < 0 ? new int[] {keyAt, cutoffAt}
+                : IntStream.concat(IntStream.of(keyAt, cutoffAt, labelAt),
+                        first.levels.keySet().stream().mapToInt(Integer::intValue)).toArray();
+        try (CsvColumns csv = open(needed)) {
+            while (csv.next()) {
+                String key = csv.get(keyAt);
+                String cutoff = csv.get(cutoffAt);
                 repeats.add(key, cutoff);
                 since.check(key, cutoff);
                 if (labelAt >= 0) {
-                    first.label(row, r.get(labelAt), cutoff);
-                    first.countLevels(r);
+                    first.label(row, csv.get(labelAt), cutoff);
+                    first.countLevels(csv);
                 }
                 row++;
             }
@@ -184,13 +184,12 @@ final class MatrixScan {
         double[][] values = new double[part.size()][n];
         long row = 0;
         int at = 0;
-        try (Reader in = Files.newBufferedReader(file, StandardCharsets.UTF_8);
-             CSVParser csv = parser(in)) {
-            for (CSVRecord r : csv) {
+        try (CsvColumns csv = open(part.stream().mapToInt(Integer::intValue).toArray())) {
+            while (csv.next()) {
                 if (first.labelled.get((int) row)) {
                     for (int j = 0; j < part.size(); j++) {
                         int c = part.get(j);
-                        values[j][at] = number(r.get(c), columns.get(c).type());
+                        values[j][at] = number(csv.get(c), columns.get(c).type());
                     }
                     at++;
                 }
@@ -256,15 +255,14 @@ final class MatrixScan {
         List<String> examples = new ArrayList<>();
         long repeated = 0;
         String current = null;
-        try (Reader in = Files.newBufferedReader(file, StandardCharsets.UTF_8);
-             CSVParser csv = parser(in)) {
-            for (CSVRecord r : csv) {
-                String cutoff = r.get(cutoffAt);
+        try (CsvColumns csv = open(keyAt, cutoffAt)) {
+            while (csv.next()) {
+                String cutoff = csv.get(cutoffAt);
                 if (!cutoff.equals(current)) {
                     current = cutoff;
                     seen.clear();
                 }
-                String key = r.get(keyAt);
+                String key = csv.get(keyAt);
                 if (candidates.contains(cutoffHash(key, cutoff))) {
                     int times = seen.merge(key, 1, Integer::sum);
                     if (times > 1) {
@@ -284,8 +282,16 @@ final class MatrixScan {
     record ConfirmedRepeats(long rows, List<String> examples) {
     }
 
-    private static CSVParser parser(Reader in) throws IOException {
-        return MatrixWriter.FORMAT.builder().setHeader().setSkipHeaderRecord(true).get().parse(in);
+    /** The matrix's rows after its header, with the fields of {@code columns}. */
+    private CsvColumns open(int... columns) throws IOException {
+        CsvColumns csv = new CsvColumns(Files.newBufferedReader(file, StandardCharsets.UTF_8), columns);
+        try {
+            csv.next();
+        } catch (IOException e) {
+            csv.close();
+            throw e;
+        }
+        return csv;
     }
 
     private QuernException unreadable(Exception e) {
@@ -404,7 +410,7 @@ final class MatrixScan {
         }
 
         /** Counts each text feature's levels by label, while the label could still be binary. */
-        void countLevels(CSVRecord r) {
+        void countLevels(CsvColumns r) {
             if (pendingLabel == null || !binary) {
                 return;
             }

@@ -46,14 +46,15 @@ public final class ColumnStats {
             return;
         }
         if (type.isNumber()) {
-            Double d = ValueFormat.number(value);
-            if (d != null) {
-                numbers++;
-                mean += (d - mean) / numbers;
-                min = Math.min(min, d);
-                max = Math.max(max, d);
-                if (sketch != null) {
-                    sketch.add(text, d);
+            // Most cells arrive as a Double or a Long: read them as they are, without boxing a new Double.
+            if (value instanceof Double d) {
+                addNumber(d, text);
+            } else if (value instanceof Long n) {
+                addNumber(n, text);
+            } else {
+                Double d = ValueFormat.number(value);
+                if (d != null) {
+                    addNumber(d, text);
                 }
             }
         } else {
@@ -66,6 +67,16 @@ public final class ColumnStats {
             if (maxText == null || text.compareTo(maxText) > 0) {
                 maxText = text;
             }
+        }
+    }
+
+    private void addNumber(double d, String text) {
+        numbers++;
+        mean += (d - mean) / numbers;
+        min = Math.min(min, d);
+        max = Math.max(max, d);
+        if (sketch != null) {
+            sketch.add(text, d);
         }
     }
 

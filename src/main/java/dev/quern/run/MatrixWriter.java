@@ -3,6 +3,7 @@ package dev.quern.run;
 import dev.quern.QuernException;
 import dev.quern.plan.OutputColumn;
 import dev.quern.plan.Role;
+import dev.quern.schema.ValueType;
 import dev.quern.sql.CompiledQuery;
 import java.io.IOException;
 import java.io.UncheckedIOException;
@@ -18,7 +19,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.function.Consumer;
 import org.apache.commons.csv.CSVFormat;
-import org.apache.commons.csv.CSVPrinter;
 
 /**
  * The run stage's core: executes the compiled query on a read-only connection and streams its rows to
@@ -30,7 +30,10 @@ public final class MatrixWriter {
     /** Rows fetched per round trip: large enough to keep the pipe full, small enough to stay flat. */
     static final int FETCH_SIZE = 2_000;
 
-    /** RFC 4180 with a header and Unix line ends, so the file is the same on every machine. */
+    /**
+     * RFC 4180 with a header and Unix line ends, so the file is the same on every machine. The matrix is
+     * written by {@link CsvRecords}, which gives the bytes a {@code CSVPrinter} over this format gives.
+     */
     public static final CSVFormat FORMAT = CSVFormat.RFC4180.builder().setRecordSeparator('\n').get();
 
     private MatrixWriter() {
@@ -44,8 +47,9 @@ public final class MatrixWriter {
             boolean autoCommit = connection.getAutoCommit();
             // Some drivers (PostgreSQL) only stream with a fetch size inside a transaction.
             connection.setAutoCommit(false);
-            try (CSVPrinter csv = new CSVPrinter(out, FORMAT)) {
-                csv.printRecord(query.plan().columns().stream().map(OutputColumn::name).toList());
+            try {
+                CsvRecords csv = new CsvRecords(out);
+                csv.write(columns.stream().map(OutputColumn::name).toArray(String[]::new));
                 // With scans, the merge counts the rows; writing them out after it is quick and says nothing.
                 Rows rows = new Rows(columns, csv, query.scanned() ? Progress.SILENT : progress);
                 if (query.scanned()) {
@@ -87,7 +91,7 @@ public final class MatrixWriter {
     /** Each row as it is written: its text, the running statistics and the tallies per cutoff. */
     private static final class Rows implements Consumer<Object[]> {
         private final List<OutputColumn> columns;
-        private final CSVPrinter csv;
+        private final CsvRecords csv;
         private final Progress progress;
         private final List<ColumnStats> stats = new ArrayList<>();
         private final int cutoffIndex;
@@ -95,9 +99,10 @@ public final class MatrixWriter {
         private final Map<String, Long> perCutoff = new LinkedHashMap<>();
         private final Map<String, ColumnStats> labelPerCutoff = new LinkedHashMap<>();
         private final String[] record;
+        private final ValueType[] types;
         private long rows;
 
-        Rows(List<OutputColumn> columns, CSVPrinter csv, Progress progress) {
+        Rows(List<OutputColumn> columns, CsvRecords csv, Progress progress) {
             this.columns = columns;
             this.csv = csv;
             this.progress = progress;
@@ -105,16 +110,17 @@ public final class MatrixWriter {
             this.cutoffIndex = indexOf(columns, Role.CUTOFF);
             this.labelIndex = columns.stream().map(OutputColumn::role).toList().indexOf(Role.LABEL);
             this.record = new String[columns.size()];
+            this.types = columns.stream().map(OutputColumn::type).toArray(ValueType[]::new);
         }
 
         @Override
         public void accept(Object[] values) {
             for (int i = 0; i < record.length; i++) {
-                record[i] = ValueFormat.format(values[i], columns.get(i).type());
+                record[i] = ValueFormat.format(values[i], types[i]);
                 stats.get(i).add(values[i], record[i]);
             }
             try {
-                csv.printRecord((Object[]) record);
+                csv.write(record);
             } catch (IOException e) {
                 throw new UncheckedIOException(e);
             }

@@ -40,7 +40,8 @@ final class ScannedRows {
 
     /**
      * Runs the queries on {@code connection} and hands every matrix row to {@code sink}; {@code merged} is
-     * told when the last query row has been read, before the first row goes to the sink.
+     * told when the last query row has been read, before the first row goes to the sink. The sink gets one
+     * array, refilled for each row, and must not keep it.
      */
     void run(Connection connection, Progress progress, Runnable merged, Consumer<Object[]> sink)
             throws SQLException, IOException {

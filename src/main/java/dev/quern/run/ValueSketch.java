@@ -42,7 +42,8 @@ public final class ValueSketch {
     private final boolean numeric;
     private final int levelLimit;
     private final int capacity;
-    private final Map<String, Long> levels = new HashMap<>();
+    /** Each level's count in a one-element array, so counting a value seen before is one lookup. */
+    private final Map<String, long[]> levels = new HashMap<>();
     private long beyondLimit;
     private long count;
     private double[] sample = new double[0];
@@ -110,11 +111,11 @@ public final class ValueSketch {
     }
 
     private void countLevel(String text) {
-        Long seen = levels.get(text);
+        long[] seen = levels.get(text);
         if (seen != null) {
-            levels.put(text, seen + 1);
+            seen[0]++;
         } else if (levels.size() < levelLimit) {
-            levels.put(text, 1L);
+            levels.put(text, new long[] {1});
         } else {
             beyondLimit++;
         }
@@ -144,7 +145,7 @@ public final class ValueSketch {
                 ? Comparator.comparingDouble(l -> Double.parseDouble(l.value()))
                 : Comparator.comparing(Level::value);
         List<Level> out = new ArrayList<>();
-        levels.forEach((v, n) -> out.add(new Level(v, n)));
+        levels.forEach((v, n) -> out.add(new Level(v, n[0])));
         out.sort(Comparator.comparingLong(Level::count).reversed().thenComparing(byValue));
         return out;
     }

@@ -1,0 +1,95 @@
+package dev.quern.run;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.io.StringWriter;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.SplittableRandom;
+import org.apache.commons.csv.CSVPrinter;
+import org.junit.jupiter.api.Test;
+
+/** The matrix's own CSV writer against commons-csv's {@code CSVPrinter}: the same characters, always. */
+class CsvRecordsTest {
+
+    /** Values at the edges of commons-csv's minimal quoting, and plain ones beside them. */
+    private static final List<String> AWKWARD = List.of("", " ", "  ", " a", "a ", "a b", "a  b", "#", "#a", "a#",
+            "!a", "\"", "\"a\"", "a\"b", "a,b", ",", "a\nb", "\n", "a\rb", "a\r\n", "\t", "a\t", "\ta", "a\tb",
+            "é", "日本", "naïve", "-", "--", "-1", "-1.5", "+3", "1e-5", "0", "12.25", "NaN", "-Infinity", "$1",
+            "%", "&", "'", "'a'", "(", "a;b", "2024-01-31", "2024-01-31 10:00:00", "a/b", "_x", ":x", "x:",
+            "A_b-9.0+z", "\u0000", "a\u0000", "\u001fa", "~", "{}", "\\", "a\\b", "\u00a0", "a\u00a0");
+
+    @Test
+    void writesEveryAwkwardValueAsCsvPrinterDoesFirstInsideAndLast() throws IOException {
+        List<String[]> records = new ArrayList<>();
+        for (String v : AWKWARD) {
+            records.add(new String[] {v});
+            records.add(new String[] {v, "x"});
+            records.add(new String[] {"x", v});
+            records.add(new String[] {"x", v, "y"});
+            records.add(new String[] {v, v, v});
+        }
+
+        assertSameAsCsvPrinter(records);
+    }
+
+    @Test
+    void writesEmptyValuesAndEmptyRecordsAsCsvPrinterDoes() throws IOException {
+        assertSameAsCsvPrinter(List.of(new String[] {""}, new String[] {"", ""}, new String[] {"", "", "a"},
+                new String[] {"a", "", ""}, new String[] {null, "a", null}));
+    }
+
+    @Test
+    void writesRandomValuesAsCsvPrinterDoes() throws IOException {
+        // Mostly the plain characters, with a sprinkle of each kind that can force quotes, at every position.
+        String alphabet = "abcXYZ0189.-+_:/ #!\"',\n\r\t;é$";
+        SplittableRandom random = new SplittableRandom(20250131);
+        List<String[]> records = new ArrayList<>();
+        for (int r = 0; r < 20_000; r++) {
+            String[] record = new String[1 + random.nextInt(6)];
+            for (int i = 0; i < record.length; i++) {
+                StringBuilder v = new StringBuilder();
+                int length = random.nextInt(5);
+                for (int k = 0; k < length; k++) {
+                    v.append(alphabet.charAt(random.nextInt(alphabet.length())));
+                }
+                record[i] = v.toString();
+            }
+            records.add(record);
+        }
+
+        // 20,000 records are far more than one buffered chunk, so chunk boundaries are crossed too.
+        assertSameAsCsvPrinter(records);
+    }
+
+    @Test
+    void callsPlainOnlyWhatNeedsNoQuotes() {
+        assertTrue(CsvRecords.plain("-12.5"));
+        assertTrue(CsvRecords.plain("2024-01-31 10:00:00"));
+        assertFalse(CsvRecords.plain(""), "empty, which is quoted first in a record");
+        assertFalse(CsvRecords.plain(" a"), "a leading space is at or below '#'");
+        assertFalse(CsvRecords.plain("a "), "a trailing space is trimmable");
+        assertFalse(CsvRecords.plain("#a"), "'#' is the comment marker's bound");
+        assertFalse(CsvRecords.plain("é"), "outside the plain set, left to commons-csv");
+    }
+
+    private static void assertSameAsCsvPrinter(List<String[]> records) throws IOException {
+        StringWriter expected = new StringWriter();
+        try (CSVPrinter printer = new CSVPrinter(expected, MatrixWriter.FORMAT)) {
+            for (String[] r : records) {
+                printer.printRecord((Object[]) r);
+            }
+        }
+        StringWriter actual = new StringWriter();
+        CsvRecords csv = new CsvRecords(actual);
+        for (String[] r : records) {
+            csv.write(r);
+        }
+        csv.flush();
+
+        assertEquals(expected.toString(), actual.toString());
+    }
+}
