@@ -33,6 +33,12 @@ final class CutoffSpill implements AutoCloseable {
 
     /** Bytes held per cutoff file while writing, and while reading the one file being read. */
     private static final int BUFFER = 1 << 16;
+    /**
+     * Bytes held by all the files being written: daily cutoffs over years are a thousand files, whose
+     * buffers must stay small beside a heap of a few hundred megabytes.
+     */
+    private static final int WRITE_BUFFERS = 16 << 20;
+    private static final int SMALLEST_BUFFER = 1 << 12;
 
     /** Reads and writes a long at any offset of a byte array, big-endian, without a stream. */
     private static final VarHandle LONGS = MethodHandles.byteArrayViewVarHandle(long[].class, ByteOrder.BIG_ENDIAN);
@@ -53,17 +59,19 @@ final class CutoffSpill implements AutoCloseable {
     private final Path folder;
     private final Spool[] files;
     private final int width;
+    private final int writeBuffer;
 
     CutoffSpill(int cutoffs, int width) throws IOException {
         this.folder = Files.createTempDirectory("quern-spill-");
         this.files = new Spool[cutoffs];
         this.width = width;
+        this.writeBuffer = Math.max(SMALLEST_BUFFER, Math.min(BUFFER, WRITE_BUFFERS / Math.max(1, cutoffs)));
     }
 
     void add(int cutoff, Object[] row) throws IOException {
         Spool out = files[cutoff];
         if (out == null) {
-            out = new Spool(Files.newOutputStream(file(cutoff)), width);
+            out = new Spool(Files.newOutputStream(file(cutoff)), width, writeBuffer);
             files[cutoff] = out;
         }
         for (int i = 0; i < row.length; i++) {
@@ -102,12 +110,13 @@ final class CutoffSpill implements AutoCloseable {
     /** One cutoff's file being written: cells packed into a buffer that goes to the stream when full. */
     private static final class Spool implements AutoCloseable {
         private final OutputStream out;
-        private final byte[] buffer = new byte[BUFFER];
+        private final byte[] buffer;
         private final String[] lastText;
         private int at;
 
-        Spool(OutputStream out, int width) {
+        Spool(OutputStream out, int width, int bufferBytes) {
             this.out = out;
+            this.buffer = new byte[bufferBytes];
             this.lastText = new String[width];
         }
 

@@ -68,6 +68,31 @@ class CutoffSpillTest {
         }
     }
 
+    @Test
+    void daysOfCutoffsShareTheWriteBuffersAndStillKeepEveryValue() throws IOException {
+        // Five thousand cutoffs get the smallest write buffer each, smaller than some texts here.
+        int cutoffCount = 5_000;
+        List<Object[]> rows = new ArrayList<>();
+        List<int[]> cutoffs = new ArrayList<>();
+        for (long key = 0; key < 4; key++) {
+            for (int c = 0; c < cutoffCount; c++) {
+                String text = c % 1_000 == 7 ? "y".repeat(10_000 + c) : "day " + c;
+                rows.add(new Object[] {key, text, c * 0.25});
+                cutoffs.add(new int[] {c});
+            }
+        }
+
+        List<Object[]> back = roundTrip(cutoffCount, cutoffs, rows);
+
+        assertEquals(rows.size(), back.size());
+        int i = 0;
+        for (int c = 0; c < cutoffCount; c++) {
+            for (long key = 0; key < 4; key++) {
+                assertArrayEquals(rows.get((int) (key * cutoffCount + c)), back.get(i++), "cutoff " + c + ", key " + key);
+            }
+        }
+    }
+
     private static List<Object[]> roundTrip(int cutoffCount, List<int[]> cutoffs, List<Object[]> rows)
             throws IOException {
         List<Object[]> back = new ArrayList<>();
