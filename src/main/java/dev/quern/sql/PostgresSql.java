@@ -26,8 +26,8 @@ final class PostgresSql extends EngineSql {
     }
 
     /**
-     * DuckDB's driver makes a {@code java.sql.Date} of each DATE through the JVM's calendar, which took a
-     * fifth of the ordered scan's time on a million rows (benchmark); an integer crosses as it is.
+     * DuckDB's driver makes a {@code java.sql.Date} of each DATE through the JVM's calendar, the costliest
+     * step of reading a scanned row in a profile of a million rows; an integer crosses as it is.
      */
     @Override
     Field<Object> scanDay(Field<Object> time, TimeStorage storage) {
