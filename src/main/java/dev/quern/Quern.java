@@ -208,95 +208,93 @@ public final class Quern {
                 sourceAuditNanos[0] = System.nanoTime() - started;
                 return read;
             });
-            try (evidence) {
-                progress.stage("checking the data against the recipe's rules");
-                long rulesStarted = System.nanoTime();
-                List<RuleOutcome> rules = RuleRunner.run(RuleQueries.of(compilation.plan()), connection);
-                List<LateRows.Query> lateQueries = LateRows.of(compilation.plan());
-                Map<String, Long> late = RuleRunner.countLate(lateQueries, connection);
-                timings.put("rules", Duration.ofNanos(System.nanoTime() - rulesStarted));
-                CompiledQuery matrixQuery = compilation.query();
-                if (source.engine() == Engine.SPARK) {
-                    // Spark writes the matrix itself, on the cluster; the stages below read its files back.
-                    progress.stage("building " + MATRIX_PARQUET + " with Spark");
-                    long sparkStarted = System.nanoTime();
-                    matrixQuery = SparkMatrix.write(compilation.query(), connection, out.reserveFolder(MATRIX_PARQUET));
-                    timings.put("spark", Duration.ofNanos(System.nanoTime() - sparkStarted));
-                }
-                CompiledQuery rows = matrixQuery;
-                progress.stage("building " + MATRIX);
-                RunResult run;
-                Plan table = compilation.plan();
-                // The audit screens the raw matrix, whose columns are the plan's: before encoding, when there is one.
-                List<AuditReport> audited = new ArrayList<>();
-                java.util.function.Consumer<Path> audit = matrix -> {
-                    progress.stage("auditing for leakage");
-                    long auditStart = System.nanoTime();
-                    audited.add(leakage.run(evidence.get(), matrix));
-                    timings.put("audit", Duration.ofNanos(System.nanoTime() - auditStart));
-                    timings.put("audit_source", Duration.ofNanos(sourceAuditNanos[0]));
-                };
-                if (encoding.isEmpty() && frozen.isEmpty()) {
-                    try (Writer matrix = out.open(MATRIX)) {
-                        run = MatrixWriter.write(rows, connection, matrix, progress);
-                    }
-                    audit.accept(out.pending(MATRIX));
-                } else {
-                    // The encode stage: the raw matrix goes to a scratch file, then is fitted and encoded into MATRIX.
-                    Encoder.Encoded encoded = Encoder.build(encoding, frozen, recipeSha256, out,
-                            raw -> MatrixWriter.write(rows, connection, raw, progress), audit, progress);
-                    run = encoded.run();
-                    table = encoded.plan();
-                    // Spark's Parquet holds the raw columns; the matrix of an encoding recipe is the encoded CSV.
-                    out.discard(MATRIX_PARQUET);
-                    timings.put("encode", encoded.time());
-                }
-                timings.put("query", run.queryTime());
-                timings.put("write", run.writeTime());
-                AuditReport leaks = audited.get(0);
-                out.write(AUDIT_JSON, leaks.json());
-                out.write(AUDIT_MD, leaks.markdown());
-                if (leaks.blocked()) {
-                    // The audit is the one output of a blocked build: no matrix, and nothing that describes one.
-                    out.discard(MATRIX);
-                    out.discard(MATRIX_PARQUET);
-                    out.discard(Encoder.FITTED);
-                    out.commit();
-                    throw blockedBy(leaks, folder);
-                }
-                progress.stage("writing reports");
-                Lineage lineage = Lineage.of(table);
-                DataDictionary dictionary = new DataDictionary(leaks.annotate(table), run, lineage);
-                String dictionaryCsv = dictionary.csv();
-                out.write(DICTIONARY_CSV, dictionaryCsv);
-                out.write(DICTIONARY_MD, dictionary.markdown());
-                out.write(RULES, RulesReport.markdown(recipe.name().text(), rules, compilation.schema(),
-                        recipe.eventTimes(), late,
-                        lateQueries.stream().map(LateRows.Query::from).findFirst()));
-                String provenance = Provenance.render(table, compilation.schema(), run, rules,
-                        new Provenance.Facts(recipe.file(), recipeSha256, Version.current(), source.display(),
-                                joined(sourceSha256), builtAt, timings));
-                out.write(PROVENANCE, provenance);
-                Optional<Comparison> drift = Optional.empty();
-                if (earlier.isPresent()) {
-                    progress.stage("comparing with " + earlier.get().name());
-                    drift = Optional.of(Compare.of(earlier.get(),
-                            BuildFiles.of(folder.toString(), out.pending(MATRIX), dictionaryCsv, provenance)));
-                }
-                out.write(REPORT, HtmlReport.render(table, run, lineage,
-                        new HtmlReport.Facts(recipe.file(), recipeSha256, Version.current(), source.display(), builtAt),
-                        drift, Thresholds.DEFAULT));
-                boolean writtenBySpark = source.engine() == Engine.SPARK && encoding.isEmpty() && frozen.isEmpty();
-                if (format == MatrixFormat.PARQUET) {
-                    if (!writtenBySpark) {
-                        progress.stage("writing " + format.fileName());
-                        ParquetWriter.convert(out.pending(MATRIX), table.columns(), out.reserve(format.fileName()));
-                    }
-                    out.discard(MATRIX);
-                }
-                List<Path> files = out.commit();
-                return new BuildSummary(compilation, run, rules, files, table.columns(), drift, leaks);
+            progress.stage("checking the data against the recipe's rules");
+            long rulesStarted = System.nanoTime();
+            List<RuleOutcome> rules = RuleRunner.run(RuleQueries.of(compilation.plan()), connection);
+            List<LateRows.Query> lateQueries = LateRows.of(compilation.plan());
+            Map<String, Long> late = RuleRunner.countLate(lateQueries, connection);
+            timings.put("rules", Duration.ofNanos(System.nanoTime() - rulesStarted));
+            CompiledQuery matrixQuery = compilation.query();
+            if (source.engine() == Engine.SPARK) {
+                // Spark writes the matrix itself, on the cluster; the stages below read its files back.
+                progress.stage("building " + MATRIX_PARQUET + " with Spark");
+                long sparkStarted = System.nanoTime();
+                matrixQuery = SparkMatrix.write(compilation.query(), connection, out.reserveFolder(MATRIX_PARQUET));
+                timings.put("spark", Duration.ofNanos(System.nanoTime() - sparkStarted));
             }
+            CompiledQuery rows = matrixQuery;
+            progress.stage("building " + MATRIX);
+            RunResult run;
+            Plan table = compilation.plan();
+            // The audit screens the raw matrix, whose columns are the plan's: before encoding, when there is one.
+            List<AuditReport> audited = new ArrayList<>();
+            java.util.function.Consumer<Path> audit = matrix -> {
+                progress.stage("auditing for leakage");
+                long auditStart = System.nanoTime();
+                audited.add(leakage.run(evidence.get(), matrix));
+                timings.put("audit", Duration.ofNanos(System.nanoTime() - auditStart));
+                timings.put("audit_source", Duration.ofNanos(sourceAuditNanos[0]));
+            };
+            if (encoding.isEmpty() && frozen.isEmpty()) {
+                try (Writer matrix = out.open(MATRIX)) {
+                    run = MatrixWriter.write(rows, connection, matrix, progress);
+                }
+                audit.accept(out.pending(MATRIX));
+            } else {
+                // The encode stage: the raw matrix goes to a scratch file, then is fitted and encoded into MATRIX.
+                Encoder.Encoded encoded = Encoder.build(encoding, frozen, recipeSha256, out,
+                        raw -> MatrixWriter.write(rows, connection, raw, progress), audit, progress);
+                run = encoded.run();
+                table = encoded.plan();
+                // Spark's Parquet holds the raw columns; the matrix of an encoding recipe is the encoded CSV.
+                out.discard(MATRIX_PARQUET);
+                timings.put("encode", encoded.time());
+            }
+            timings.put("query", run.queryTime());
+            timings.put("write", run.writeTime());
+            AuditReport leaks = audited.get(0);
+            out.write(AUDIT_JSON, leaks.json());
+            out.write(AUDIT_MD, leaks.markdown());
+            if (leaks.blocked()) {
+                // The audit is the one output of a blocked build: no matrix, and nothing that describes one.
+                out.discard(MATRIX);
+                out.discard(MATRIX_PARQUET);
+                out.discard(Encoder.FITTED);
+                out.commit();
+                throw blockedBy(leaks, folder);
+            }
+            progress.stage("writing reports");
+            Lineage lineage = Lineage.of(table);
+            DataDictionary dictionary = new DataDictionary(leaks.annotate(table), run, lineage);
+            String dictionaryCsv = dictionary.csv();
+            out.write(DICTIONARY_CSV, dictionaryCsv);
+            out.write(DICTIONARY_MD, dictionary.markdown());
+            out.write(RULES, RulesReport.markdown(recipe.name().text(), rules, compilation.schema(),
+                    recipe.eventTimes(), late,
+                    lateQueries.stream().map(LateRows.Query::from).findFirst()));
+            String provenance = Provenance.render(table, compilation.schema(), run, rules,
+                    new Provenance.Facts(recipe.file(), recipeSha256, Version.current(), source.display(),
+                            joined(sourceSha256), builtAt, timings));
+            out.write(PROVENANCE, provenance);
+            Optional<Comparison> drift = Optional.empty();
+            if (earlier.isPresent()) {
+                progress.stage("comparing with " + earlier.get().name());
+                drift = Optional.of(Compare.of(earlier.get(),
+                        BuildFiles.of(folder.toString(), out.pending(MATRIX), dictionaryCsv, provenance)));
+            }
+            out.write(REPORT, HtmlReport.render(table, run, lineage,
+                    new HtmlReport.Facts(recipe.file(), recipeSha256, Version.current(), source.display(), builtAt),
+                    drift, Thresholds.DEFAULT));
+            boolean writtenBySpark = source.engine() == Engine.SPARK && encoding.isEmpty() && frozen.isEmpty();
+            if (format == MatrixFormat.PARQUET) {
+                if (!writtenBySpark) {
+                    progress.stage("writing " + format.fileName());
+                    ParquetWriter.convert(out.pending(MATRIX), table.columns(), out.reserve(format.fileName()));
+                }
+                out.discard(MATRIX);
+            }
+            List<Path> files = out.commit();
+            return new BuildSummary(compilation, run, rules, files, table.columns(), drift, leaks);
         } catch (IOException e) {
             throw QuernException.output("writing to " + folder + " failed: " + e.getMessage(), e);
         } catch (SQLException e) {

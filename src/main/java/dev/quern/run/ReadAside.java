@@ -15,47 +15,49 @@ import java.util.function.Supplier;
  * while the build writes the matrix, so that a second core works on it instead of the build waiting for it
  * afterwards. The leakage audit's reads of the source are such a read.
  *
- * <p>The connection is opened as every source connection is, read-only. On Spark, whose session already
- * spreads one query over the cluster, the read waits and runs on the build's own connection when asked for.
+ * <p>The connection is opened as every source connection is, read-only, and closed when the read ends,
+ * whether or not anyone still wants its result. On Spark, whose session already spreads one query over the
+ * cluster, the read waits and runs on the build's own connection when asked for.
  *
  * <pre>{@code
- * try (ReadAside<Evidence> evidence = ReadAside.start(source, connection, audit::readSource)) {
- *     ... write the matrix ...
- *     audit.run(evidence.get(), matrix);
- * }
+ * ReadAside<Evidence> evidence = ReadAside.start(source, connection, audit::readSource);
+ * ... write the matrix ...
+ * audit.run(evidence.get(), matrix);
  * }</pre>
  */
-public final class ReadAside<T> implements AutoCloseable {
+public final class ReadAside<T> {
 
     /** The running read; null when the read waits to run on the build's connection. */
     private final CompletableFuture<T> running;
     private final Supplier<T> deferred;
-    private final Connection own;
 
-    private ReadAside(CompletableFuture<T> running, Supplier<T> deferred, Connection own) {
+    private ReadAside(CompletableFuture<T> running, Supplier<T> deferred) {
         this.running = running;
         this.deferred = deferred;
-        this.own = own;
     }
 
     /** Starts {@code read} on a connection of its own to {@code source}; {@code main} is the build's connection. */
     public static <T> ReadAside<T> start(Source source, Connection main, Function<Connection, T> read) {
         if (source.engine() == Engine.SPARK) {
-            return new ReadAside<>(null, () -> read.apply(main), null);
+            return new ReadAside<>(null, () -> read.apply(main));
         }
         Connection own = separate(source, main);
         CompletableFuture<T> running = new CompletableFuture<>();
         Thread thread = new Thread(() -> {
-            try {
-                running.complete(read.apply(own));
+            T value;
+            try (own) {
+                value = read.apply(own);
             } catch (Throwable t) {
                 running.completeExceptionally(t);
+                return;
             }
+            // Completed only once the connection is closed: whoever has the result has no connection left open.
+            running.complete(value);
         }, "quern-read-aside");
         // A build that fails ends the JVM without waiting for a read nobody will use.
         thread.setDaemon(true);
         thread.start();
-        return new ReadAside<>(running, null, own);
+        return new ReadAside<>(running, null);
     }
 
     /** The read's result, waiting for it if need be; its failure is thrown here, as it was thrown there. Once. */
@@ -94,19 +96,5 @@ public final class ReadAside<T> implements AutoCloseable {
             }
         }
         return source.open();
-    }
-
-    /** Waits for the read to end, so its connection is closed idle, then closes it. */
-    @Override
-    public void close() {
-        if (own == null) {
-            return;
-        }
-        try {
-            running.handle((value, failure) -> null).join();
-            own.close();
-        } catch (SQLException e) {
-            // The connection held only a read, finished; there is nothing of it to keep.
-        }
     }
 }

@@ -22,7 +22,7 @@ import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
-/** A read aside runs on a read-only connection of its own, hands back its result or its failure, and closes. */
+/** A read aside runs on a read-only connection of its own, closes it, and hands back its result or its failure. */
 class ReadAsideTest {
 
     @TempDir
@@ -44,16 +44,15 @@ class ReadAsideTest {
     void readsOnAReadOnlyConnectionOfItsOwn() throws SQLException {
         AtomicReference<Connection> used = new AtomicReference<>();
         try (Connection main = source.open()) {
-            try (ReadAside<Long> members = ReadAside.start(source, main, c -> {
+            ReadAside<Long> members = ReadAside.start(source, main, c -> {
                 used.set(c);
                 long n = count(c);
                 assertThrows(SQLException.class, () -> write(c));
                 return n;
-            })) {
-                assertEquals(3L, members.get());
-                assertNotSame(main, used.get());
-            }
-            assertTrue(used.get().isClosed(), "closing the read closes its connection");
+            });
+            assertEquals(3L, members.get());
+            assertNotSame(main, used.get());
+            assertTrue(used.get().isClosed(), "the read's connection is closed when its result is handed over");
             assertEquals(3L, count(main), "the build's connection stays open");
         }
     }
@@ -61,10 +60,10 @@ class ReadAsideTest {
     @Test
     void aFailedReadThrowsItsOwnFailureWhenAskedFor() throws SQLException {
         QuernException failure = QuernException.data("the read failed");
-        try (Connection main = source.open();
-             ReadAside<Long> read = ReadAside.start(source, main, c -> {
-                 throw failure;
-             })) {
+        try (Connection main = source.open()) {
+            ReadAside<Long> read = ReadAside.start(source, main, c -> {
+                throw failure;
+            });
             assertSame(failure, assertThrows(QuernException.class, read::get));
         }
     }
