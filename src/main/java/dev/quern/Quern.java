@@ -102,14 +102,12 @@ public final class Quern {
 
     /** Reads and parses a recipe file; relative SQLite paths in it are read from the file's folder. */
     public static Quern load(Path recipeFile) {
-        Engine.warmUp();
         Path folder = Optional.ofNullable(recipeFile.toAbsolutePath().getParent()).orElse(Path.of("."));
         return new Quern(RecipeReader.read(recipeFile), folder);
     }
 
     /** A recipe given as text; relative SQLite paths are read from {@code folder}. */
     public static Quern of(Recipe recipe, Path folder) {
-        Engine.warmUp();
         return new Quern(recipe, folder);
     }
 

@@ -2,15 +2,12 @@ package dev.quern.schema;
 
 import java.util.Locale;
 import java.util.Optional;
-import java.util.concurrent.atomic.AtomicBoolean;
 import org.jooq.DSLContext;
-import org.jooq.Field;
 import org.jooq.SQLDialect;
 import org.jooq.conf.RenderQuotedNames;
 import org.jooq.conf.Settings;
 import org.jooq.conf.StatementType;
 import org.jooq.impl.DSL;
-import org.jooq.impl.SQLDataType;
 
 /** The database engines Quern runs on, recognised from a JDBC URL. */
 public enum Engine {
@@ -65,32 +62,6 @@ public enum Engine {
      */
     public DSLContext sql() {
         return DSL.using(dialect, settings());
-    }
-
-    /**
-     * Starts loading jOOQ on a daemon thread, once per JVM. Its first context and query take most of a second
-     * of class loading and initialisation (measured: 0.65 s for the first context, 0.33 s for the first
-     * select); begun as the recipe is read, that time overlaps reading it and opening the source.
-     */
-    public static void warmUp() {
-        if (WARMED_UP.compareAndSet(false, true)) {
-            Thread thread = new Thread(Engine::renderOneQuery, "quern-warm-up");
-            thread.setDaemon(true);
-            thread.start();
-        }
-    }
-
-    private static final AtomicBoolean WARMED_UP = new AtomicBoolean();
-
-    /** A query with the parts every stage renders: aggregates, a cast, a case, a filter, an order. */
-    private static void renderOneQuery() {
-        Field<Object> time = DSL.field(DSL.name("t"));
-        DSLContext sql = SQLITE.sql();
-        sql.renderInlined(sql.select(DSL.count(), DSL.min(time).cast(SQLDataType.DATE),
-                        DSL.when(time.isNotNull(), DSL.inline(1)).otherwise(DSL.inline(0)))
-                .from(DSL.table(DSL.name("s")).as(DSL.name("a")))
-                .where(time.ge(DSL.inline((Object) "2025-01-01")))
-                .orderBy(time));
     }
 
     /** The same, executing on {@code connection}. */
