@@ -19,7 +19,8 @@ abstract class EngineSql {
     static EngineSql of(Engine engine) {
         return switch (engine) {
             case SQLITE -> new SqliteSql();
-            case POSTGRES, DUCKDB -> new PostgresSql(engine);
+            case POSTGRES -> new PostgresSql();
+            case DUCKDB -> new DuckDbSql();
             case MARIADB, MYSQL -> new MariaDbSql(engine);
             case SPARK -> new SparkSql();
         };
