@@ -56,8 +56,6 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
-import java.util.concurrent.CompletableFuture;
-import java.util.concurrent.CompletionException;
 
 /**
  * Quern's Java API: a recipe on its way through the stages (recipe, schema, plan, sql, run, report).
@@ -189,8 +187,7 @@ public final class Quern {
         Map<String, Duration> timings = new LinkedHashMap<>();
         Instant builtAt = Instant.now();
         // Fingerprinting a database file reads all of it; it needs nothing of the build, so it runs beside it.
-        CompletableFuture<Optional<String>> sourceSha256 =
-                CompletableFuture.supplyAsync(() -> source.file().map(Quern::sha256));
+        ReadAside<Optional<String>> sourceSha256 = ReadAside.start(() -> source.file().map(Quern::sha256));
         try (Connection connection = source.open(); OutputFolder out = new OutputFolder(folder)) {
             progress.stage("checking the recipe against " + source.engine().label());
             Compilation compilation = compile(source, connection, timings);
@@ -272,7 +269,7 @@ public final class Quern {
                     lateQueries.stream().map(LateRows.Query::from).findFirst()));
             String provenance = Provenance.render(table, compilation.schema(), run, rules,
                     new Provenance.Facts(recipe.file(), recipeSha256, Version.current(), source.display(),
-                            joined(sourceSha256), builtAt, timings));
+                            sourceSha256.get(), builtAt, timings));
             out.write(PROVENANCE, provenance);
             Optional<Comparison> drift = Optional.empty();
             if (earlier.isPresent()) {
@@ -363,18 +360,6 @@ public final class Quern {
         timings.put("schema", Duration.ofNanos(t1 - t0));
         timings.put("compile", Duration.ofNanos(t2 - t1));
         return new Compilation(recipe, source, schema, plan, query);
-    }
-
-    /** The value of a task run beside the build; its failure is thrown as it was thrown there. */
-    private static <T> T joined(CompletableFuture<T> task) {
-        try {
-            return task.join();
-        } catch (CompletionException e) {
-            if (e.getCause() instanceof RuntimeException failure) {
-                throw failure;
-            }
-            throw e;
-        }
     }
 
     static String sha256(String text) {

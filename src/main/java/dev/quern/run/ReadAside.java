@@ -13,7 +13,8 @@ import java.util.function.Supplier;
 /**
  * A read of the source that does not depend on the matrix, taken on a connection and a thread of its own
  * while the build writes the matrix, so that a second core works on it instead of the build waiting for it
- * afterwards. The leakage audit's reads of the source are such a read.
+ * afterwards. The leakage audit's reads of the source are such a read, and so is fingerprinting the source's
+ * database file.
  *
  * <p>The connection is opened as every source connection is, read-only, and closed when the read ends,
  * whether or not anyone still wants its result. On Spark, whose session already spreads one query over the
@@ -42,17 +43,26 @@ public final class ReadAside<T> {
             return new ReadAside<>(null, () -> read.apply(main));
         }
         Connection own = separate(source, main);
+        // The result is handed over only once the connection is closed: whoever has it has nothing left open.
+        return start(() -> {
+            try (own) {
+                return read.apply(own);
+            } catch (SQLException e) {
+                throw QuernException.data("closing the second connection to " + source.display() + " failed: "
+                        + e.getMessage(), e);
+            }
+        });
+    }
+
+    /** Starts {@code read}, which needs no connection (reading a file, say), on a thread of its own. */
+    public static <T> ReadAside<T> start(Supplier<T> read) {
         CompletableFuture<T> running = new CompletableFuture<>();
         Thread thread = new Thread(() -> {
-            T value;
-            try (own) {
-                value = read.apply(own);
+            try {
+                running.complete(read.get());
             } catch (Throwable t) {
                 running.completeExceptionally(t);
-                return;
             }
-            // Completed only once the connection is closed: whoever has the result has no connection left open.
-            running.complete(value);
         }, "quern-read-aside");
         // A build that fails ends the JVM without waiting for a read nobody will use.
         thread.setDaemon(true);
