@@ -28,10 +28,16 @@ final class ChildJvm {
     }
 
     Outcome run(String maxHeap, Path log, String mainClass, List<String> args) {
+        return run(maxHeap, List.of(), log, mainClass, args);
+    }
+
+    /** Runs {@code mainClass} as {@link #run(String, Path, String, List)} does, with more JVM options. */
+    Outcome run(String maxHeap, List<String> jvmOptions, Path log, String mainClass, List<String> args) {
         Path report = log.resolveSibling(log.getFileName() + ".measured");
         List<String> command = new ArrayList<>(List.of(javaBinary(), "-Xmx" + maxHeap,
-                "-Dorg.jooq.no-logo=true", "-Dorg.jooq.no-tips=true", "-cp", classPath,
-                Measured.class.getName(), report.toString(), mainClass));
+                "-Dorg.jooq.no-logo=true", "-Dorg.jooq.no-tips=true"));
+        command.addAll(jvmOptions);
+        command.addAll(List.of("-cp", classPath, Measured.class.getName(), report.toString(), mainClass));
         command.addAll(args);
         try {
             Files.createDirectories(log.getParent());
@@ -52,6 +58,16 @@ final class ChildJvm {
             Thread.currentThread().interrupt();
             throw new IllegalStateException("interrupted while waiting for " + mainClass, e);
         }
+    }
+
+    /**
+     * The JVM options that map the class-data archive {@code file} (Java's application class-data sharing,
+     * JEP 350), or, while it does not exist, record it when the run exits. The quern launcher does the same
+     * for its users, so every timed program starts as quern does from its launcher.
+     */
+    static List<String> classData(Path file) {
+        String option = Files.exists(file) ? "-XX:SharedArchiveFile=" : "-XX:ArchiveClassesAtExit=";
+        return List.of(option + file, "-Xlog:cds=off", "-Xlog:cds+dynamic=off");
     }
 
     /** Stops the benchmark when a preparation step (generating, loading) failed: nothing after it can be timed. */
