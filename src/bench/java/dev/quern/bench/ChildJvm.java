@@ -34,7 +34,8 @@ final class ChildJvm {
     /** Runs {@code mainClass} as {@link #run(String, Path, String, List)} does, with more JVM options. */
     Outcome run(String maxHeap, List<String> jvmOptions, Path log, String mainClass, List<String> args) {
         Path report = log.resolveSibling(log.getFileName() + ".measured");
-        List<String> command = new ArrayList<>(List.of(javaBinary(), "-Xmx" + maxHeap,
+        // The collector quern's launcher chooses for a batch job, for every program timed against it.
+        List<String> command = new ArrayList<>(List.of(javaBinary(), "-Xmx" + maxHeap, "-XX:+UseParallelGC",
                 "-Dorg.jooq.no-logo=true", "-Dorg.jooq.no-tips=true"));
         command.addAll(jvmOptions);
         command.addAll(List.of("-cp", classPath, Measured.class.getName(), report.toString(), mainClass));
