@@ -64,7 +64,11 @@ final class BlockScanner implements AutoCloseable {
     void measure(Object entity, LocalDate cutoff, Object[] out, int[] offsets) throws SQLException {
         advanceTo(entity);
         boolean has = key != null && KeyOrder.INSTANCE.compare(key, entity) == 0;
-        int[] bounds = boundaries.computeIfAbsent(cutoff, this::boundaries);
+        int[] bounds = boundaries.get(cutoff);
+        if (bounds == null) {
+            bounds = boundaries(cutoff);
+            boundaries.put(cutoff, bounds);
+        }
         int to = has ? lowerBound(bounds[aggregates.size()]) : 0;
         for (int i = 0; i < aggregates.size(); i++) {
             Aggregate a = aggregates.get(i);

@@ -19,6 +19,18 @@ public final class ValueFormat {
 
     private static final DateTimeFormatter TIMESTAMP = DateTimeFormatter.ofPattern("yyyy-MM-dd HH:mm:ss");
 
+    /**
+     * The text of the small whole numbers most cells of a matrix hold (counts, days since): one string each,
+     * made once, whose hash the column statistics then compute once instead of once per cell.
+     */
+    private static final String[] SMALL = new String[4_096];
+
+    static {
+        for (int i = 0; i < SMALL.length; i++) {
+            SMALL[i] = Integer.toString(i);
+        }
+    }
+
     private ValueFormat() {
     }
 
@@ -78,6 +90,10 @@ public final class ValueFormat {
     }
 
     private static String integer(Object value) {
+        if (value instanceof Long || value instanceof Integer) {
+            long n = ((Number) value).longValue();
+            return n >= 0 && n < SMALL.length ? SMALL[(int) n] : Long.toString(n);
+        }
         if (value instanceof BigDecimal b) {
             return b.toBigInteger().toString();
         }

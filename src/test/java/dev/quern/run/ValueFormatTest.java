@@ -40,4 +40,17 @@ class ValueFormatTest {
             }
         }
     }
+
+    /** Small whole numbers come from a table made once; every whole number still reads as Long.toString writes it. */
+    @Test
+    void wholeNumbersAreTheirDecimalDigitsInsideAndOutsideTheTable() {
+        for (long n = -5_000; n <= 10_000; n++) {
+            assertEquals(Long.toString(n), ValueFormat.format(n, ValueType.INTEGER));
+            assertEquals(Long.toString(n), ValueFormat.format((int) n, ValueType.INTEGER));
+        }
+        assertEquals("9223372036854775807", ValueFormat.format(Long.MAX_VALUE, ValueType.INTEGER));
+        assertEquals("-9223372036854775808", ValueFormat.format(Long.MIN_VALUE, ValueType.INTEGER));
+        assertEquals("42", ValueFormat.format(42.0, ValueType.INTEGER));
+        assertEquals("42", ValueFormat.format(new BigDecimal("42.00"), ValueType.INTEGER));
+    }
 }
