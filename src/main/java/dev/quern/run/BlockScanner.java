@@ -4,6 +4,7 @@ import dev.quern.QuernException;
 import dev.quern.plan.Aggregate;
 import dev.quern.plan.Block;
 import dev.quern.plan.Boundary;
+import dev.quern.plan.ColumnRef;
 import dev.quern.sql.BlockScan;
 import java.sql.ResultSet;
 import java.sql.SQLException;
@@ -25,6 +26,8 @@ final class BlockScanner implements AutoCloseable {
     private final List<Aggregate> aggregates;
     private final int inputs;
     private final int[] aggregateInput;
+    /** Each input's source column when it is a number column, else null: its values must then be numbers. */
+    private final ColumnRef[] numberInput;
     private final java.util.Map<LocalDate, int[]> boundaries = new java.util.HashMap<>();
     private static final Object[] NONE = new Object[0];
 
@@ -48,8 +51,13 @@ final class BlockScanner implements AutoCloseable {
         this.inputs = types.length - (BlockScan.FIRST_INPUT - 1);
         this.values = new Object[inputs][64];
         this.aggregateInput = new int[aggregates.size()];
+        this.numberInput = new ColumnRef[inputs];
         for (int i = 0; i < aggregates.size(); i++) {
             aggregateInput[i] = scan.inputColumn(i) - BlockScan.FIRST_INPUT;
+            ColumnRef input = aggregates.get(i).input().orElse(null);
+            if (aggregateInput[i] >= 0 && input != null && input.type().isNumber()) {
+                numberInput[aggregateInput[i]] = input;
+            }
         }
     }
 
@@ -143,9 +151,22 @@ final class BlockScanner implements AutoCloseable {
         }
         days[size] = Days.of(ValueFormat.read(rows, 2, types[1]), dayColumn);
         for (int i = 0; i < inputs; i++) {
-            values[i][size] = ValueFormat.read(rows, BlockScan.FIRST_INPUT + i, types[BlockScan.FIRST_INPUT - 1 + i]);
+            Object value = ValueFormat.read(rows, BlockScan.FIRST_INPUT + i, types[BlockScan.FIRST_INPUT - 1 + i]);
+            if (value != null && numberInput[i] != null && !(value instanceof Number)) {
+                throw notANumber(numberInput[i], value, days[size]);
+            }
+            values[i][size] = value;
         }
         size++;
+    }
+
+    /** SQLite keeps whatever is put in a column, so a number column can hold text; no measure can use it. */
+    private QuernException notANumber(ColumnRef column, Object value, int day) {
+        return QuernException.data(column.qualified() + " holds " + ValueFormat.quoted(value) + " in a row of "
+                + scan.block().path().entityLink().qualified() + " " + key + " dated " + day / 10_000 + "-"
+                + String.format("%02d-%02d", day / 100 % 100, day % 100) + ", where a number belongs (SQLite keeps"
+                + " whatever is put in a column): set such values to numbers, or to NULL for none, in the source,"
+                + " or leave those rows out with a check under rules");
     }
 
     /** Engines order the days as {@link Days} does; this only guards against one that does not. */

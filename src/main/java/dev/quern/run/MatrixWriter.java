@@ -116,7 +116,11 @@ public final class MatrixWriter {
         @Override
         public void accept(Object[] values) {
             for (int i = 0; i < record.length; i++) {
-                record[i] = ValueFormat.format(values[i], types[i]);
+                try {
+                    record[i] = ValueFormat.format(values[i], types[i]);
+                } catch (NumberFormatException e) {
+                    throw notANumber(columns.get(i), values[i]);
+                }
                 stats.get(i).add(values[i], record[i]);
             }
             try {
@@ -134,6 +138,15 @@ public final class MatrixWriter {
             if (++rows % FETCH_SIZE == 0) {
                 progress.rows(rows);
             }
+        }
+
+        /** The engine computed text for a number column: SQLite does so from text kept in a number column. */
+        private static QuernException notANumber(OutputColumn column, Object value) {
+            return QuernException.data("the matrix column " + column.name() + " came out as "
+                    + ValueFormat.quoted(value) + ", where a number belongs: a column it is computed from holds text"
+                    + " in some rows (SQLite keeps whatever is put in a column; 'quern lineage' names the column)."
+                    + " Set such values to numbers, or to NULL for none, in the source, or leave those rows out"
+                    + " with a check under rules");
         }
 
         void flush() throws IOException {

@@ -71,6 +71,12 @@ public final class ValueFormat {
         };
     }
 
+    /** A value for a message: in quotes, cut short when long, so one odd cell cannot flood a terminal. */
+    public static String quoted(Object value) {
+        String text = String.valueOf(value);
+        return "'" + (text.length() > 40 ? text.substring(0, 40) + "..." : text) + "'";
+    }
+
     /** The value as a double, for statistics; null when it is none. */
     public static Double number(Object value) {
         if (value instanceof Number n) {

@@ -12,6 +12,9 @@ import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.security.MessageDigest;
+import java.sql.Connection;
+import java.sql.DriverManager;
+import java.sql.Statement;
 import java.util.List;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
@@ -117,6 +120,31 @@ class BuildCommandTest {
         // Each scan still reads rides once, without the rides the plausibility rule excludes.
         assertEquals(2, count(sql, "from rides\n"), sql);
         assertEquals(2, count(sql, "rides.distance_km"), sql);
+    }
+
+    /** SQLite keeps text in a REAL column; each shape stops with a data error that names it, and writes nothing. */
+    @Test
+    void textInANumberColumnIsADataErrorInEitherShape() throws Exception {
+        Path source = folder.resolve("text-in-numbers.sqlite");
+        Files.copy(SAMPLE, source);
+        try (Connection c = DriverManager.getConnection("jdbc:sqlite:" + source);
+             Statement s = c.createStatement()) {
+            s.executeUpdate("update rides set distance_km = 'twelve' where ride_id = (select min(ride_id) from rides)");
+        }
+        Path scanned = folder.resolve("scanned");
+        assertEquals(66, quern("build", DEMO, "--source", "jdbc:sqlite:" + source, "--out", scanned.toString(),
+                "--shape", "ordered-scan"));
+        assertTrue(err.toString().contains("rides.distance_km holds 'twelve' in a row of rides.member_id "),
+                err.toString());
+        Path joined = folder.resolve("joined");
+        assertEquals(66, quern("build", DEMO, "--source", "jdbc:sqlite:" + source, "--out", joined.toString(),
+                "--shape", "range-join"));
+        // SQLite's max() of the column is then the text, which no number column can hold.
+        assertTrue(err.toString().contains("the matrix column rides_max_distance_km_365d came out as 'twelve'"),
+                err.toString());
+        assertFalse(err.toString().contains("internal error"), err.toString());
+        assertFalse(Files.exists(scanned.resolve("matrix.csv")));
+        assertFalse(Files.exists(joined.resolve("matrix.csv")));
     }
 
     @Test
