@@ -18,9 +18,10 @@ import org.yaml.snakeyaml.Yaml;
  * the hand-written result; writes {@code results.json} and prints a table. {@code mvn -Pbench verify}
  * runs it (see DEVELOPERS.md).
  *
- * <pre>{@code Benchmark PROJECT_DIR CLASS_PATH [SCALES] [SEED]}</pre>
+ * <pre>{@code Benchmark PROJECT_DIR CLASS_PATH [SCALES] [SEED] [REPEAT]}</pre>
  *
- * SCALES are millions of rides, comma-separated ({@code 1,2,4}; by default 1,2). Every timed run is a
+ * SCALES are millions of rides, comma-separated ({@code 1,2,4}; by default 1,2). REPEAT (by default 1)
+ * times every program that many times, in rounds, and takes the median. Every timed run is a
  * fresh JVM with {@code -Xmx256m}, timed from its main method's start to its exit. Each program (quern, and
  * the SQL-to-CSV runner of the hand-written query and the floor) maps a class-data archive recorded for it
  * on each engine by one untimed run before its first timed one, as quern's launcher records one on a user's
@@ -31,11 +32,13 @@ public final class Benchmark {
     private final Path project;
     private final Path work;
     private final ChildJvm jvm;
+    private final int repeat;
 
-    private Benchmark(Path project, String classPath) {
+    private Benchmark(Path project, String classPath, int repeat) {
         this.project = project;
         this.work = project.resolve("target/bench");
         this.jvm = new ChildJvm(classPath);
+        this.repeat = repeat;
     }
 
     /**
@@ -53,7 +56,11 @@ public final class Benchmark {
         double[] scales = Arrays.stream((args.length > 2 ? args[2] : "1,2").split(","))
                 .map(String::strip).filter(s -> !s.isEmpty()).mapToDouble(Double::parseDouble).toArray();
         long seed = args.length > 3 ? Long.parseLong(args[3]) : dev.quern.sample.CycleClubGenerator.SHIPPED_SEED;
-        List<Measurement> results = new Benchmark(project, args[1]).run(scales, seed);
+        int repeat = args.length > 4 ? Integer.parseInt(args[4]) : 1;
+        if (repeat < 1) {
+            throw new IllegalArgumentException("bench.repeat must be at least 1, not " + repeat);
+        }
+        List<Measurement> results = new Benchmark(project, args[1], repeat).run(scales, seed);
         Report report = new Report(results);
         Path json = project.resolve("target/bench/results.json");
         Files.writeString(json, report.json(), StandardCharsets.UTF_8);
@@ -92,36 +99,83 @@ public final class Benchmark {
             jvm.require(timed("(recording classes)", sqlToCsv(sqlClasses, runs, "training", url,
                     sql.resolve("floor.sql"))));
         }
-        ChildJvm.Outcome floor = timed("scan floor", sqlToCsv(sqlClasses, runs, "floor", url,
-                sql.resolve("floor.sql")));
-        ChildJvm.Outcome hand = timed("hand-written", sqlToCsv(sqlClasses, runs, "handwritten", url,
-                sql.resolve("handwritten-" + engine.label + ".sql")));
-        jvm.require(floor);
-        jvm.require(hand);
-        List<Measurement> measured = new ArrayList<>();
-        for (QuernVariant variant : quernVariants()) {
-            Path out = runs.resolve(variant.name().replaceAll("[^A-Za-z0-9._-]+", "_"));
+        List<QuernVariant> variants = quernVariants();
+        Map<QuernVariant, List<String>> arguments = new LinkedHashMap<>();
+        for (QuernVariant variant : variants) {
             List<String> args = new ArrayList<>(List.of("build",
                     project.resolve("src/bench/resources/rides-payments.yaml").toString(),
-                    "--source", url, "--out", out.toString()));
+                    "--source", url, "--out", out(runs, variant).toString()));
             args.addAll(variant.options());
-            if (!Files.exists(quernClasses)) {
-                jvm.require(timed("(recording classes)", jvm.run(Measurement.HEAP_LIMIT_MB + "m",
-                        ChildJvm.classData(quernClasses), runs.resolve("training.log"), "dev.quern.cli.Main",
-                        withOut(args, runs.resolve("training")))));
+            arguments.put(variant, args);
+        }
+        if (!Files.exists(quernClasses)) {
+            jvm.require(timed("(recording classes)", jvm.run(Measurement.HEAP_LIMIT_MB + "m",
+                    ChildJvm.classData(quernClasses), runs.resolve("training.log"), "dev.quern.cli.Main",
+                    withOut(arguments.get(variants.get(0)), runs.resolve("training")))));
+        }
+        // Rounds of every program in turn, so that a slow spell of the machine falls on all of them alike.
+        List<ChildJvm.Outcome> floors = new ArrayList<>();
+        List<ChildJvm.Outcome> hands = new ArrayList<>();
+        Map<QuernVariant, List<ChildJvm.Outcome>> querns = new LinkedHashMap<>();
+        for (int round = 0; round < repeat; round++) {
+            floors.add(jvm.require(timed("scan floor", sqlToCsv(sqlClasses, runs, "floor", url,
+                    sql.resolve("floor.sql")))));
+            hands.add(jvm.require(timed("hand-written", sqlToCsv(sqlClasses, runs, "handwritten", url,
+                    sql.resolve("handwritten-" + engine.label + ".sql")))));
+            for (QuernVariant variant : variants) {
+                querns.computeIfAbsent(variant, v -> new ArrayList<>()).add(timed(variant.name(),
+                        jvm.run(Measurement.HEAP_LIMIT_MB + "m", ChildJvm.classData(quernClasses),
+                                runs.resolve(out(runs, variant).getFileName() + ".log"), "dev.quern.cli.Main",
+                                arguments.get(variant))));
             }
-            ChildJvm.Outcome quern = timed(variant.name(), jvm.run(Measurement.HEAP_LIMIT_MB + "m",
-                    ChildJvm.classData(quernClasses), runs.resolve(out.getFileName() + ".log"),
-                    "dev.quern.cli.Main", args));
+        }
+        Repeated floor = new Repeated(floors);
+        Repeated hand = new Repeated(hands);
+        List<Measurement> measured = new ArrayList<>();
+        for (QuernVariant variant : variants) {
+            Repeated quern = new Repeated(querns.get(variant));
+            Path out = out(runs, variant);
             MatrixComparison.Result same = quern.ok()
                     ? MatrixComparison.compare(out.resolve("matrix.csv"), runs.resolve("handwritten.csv"))
                     : new MatrixComparison.Result(0, List.of("quern failed: see " + quern.log()), 1);
             same.differences().forEach(d -> System.out.println("    differs: " + d));
-            measured.add(new Measurement(data, engine, variant.name(), same.rows(), quern.elapsedSeconds(),
-                    hand.elapsedSeconds(), floor.elapsedSeconds(), quern.peakHeapMb(), quern.ok(), same.equal(),
-                    same.differences(), quern.ok() ? timings(out.resolve("provenance.json")) : Map.of()));
+            measured.add(new Measurement(data, engine, variant.name(), same.rows(), quern.seconds(),
+                    hand.seconds(), floor.seconds(), quern.peakHeapMb(), quern.ok(), same.equal(),
+                    same.differences(), quern.ok() ? timings(out.resolve("provenance.json")) : Map.of(),
+                    quern.all(), hand.all(), floor.all()));
         }
         return measured;
+    }
+
+    private static Path out(Path runs, QuernVariant variant) {
+        return runs.resolve(variant.name().replaceAll("[^A-Za-z0-9._-]+", "_"));
+    }
+
+    /**
+     * The runs of one program: its time is their median (the lower middle one for an even count), its heap
+     * the largest peak, and it finished only when every run did.
+     */
+    private record Repeated(List<ChildJvm.Outcome> runs) {
+        double seconds() {
+            List<Double> sorted = all().stream().sorted().toList();
+            return sorted.get((sorted.size() - 1) / 2);
+        }
+
+        List<Double> all() {
+            return runs.stream().map(ChildJvm.Outcome::elapsedSeconds).toList();
+        }
+
+        double peakHeapMb() {
+            return runs.stream().mapToDouble(ChildJvm.Outcome::peakHeapMb).max().orElse(Double.NaN);
+        }
+
+        boolean ok() {
+            return runs.stream().allMatch(ChildJvm.Outcome::ok);
+        }
+
+        Path log() {
+            return runs.stream().filter(o -> !o.ok()).findFirst().orElse(runs.get(0)).log();
+        }
     }
 
     private ChildJvm.Outcome sqlToCsv(Path classes, Path runs, String name, String url, Path query) {

@@ -62,6 +62,11 @@ final class Report {
                 o.put("rides_ratio_to_previous", round((double) m.data().rides() / before.data().rides()));
             }
             o.put("quern_timings_ms", m.quernTimings());
+            if (m.quernRuns().size() > 1) {
+                o.put("quern_runs_s", m.quernRuns().stream().map(Report::round).toList());
+                o.put("handwritten_runs_s", m.handwrittenRuns().stream().map(Report::round).toList());
+                o.put("floor_runs_s", m.floorRuns().stream().map(Report::round).toList());
+            }
             objects.add(o);
         }
         return Json.write(objects);

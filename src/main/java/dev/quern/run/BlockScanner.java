@@ -163,8 +163,9 @@ final class BlockScanner implements AutoCloseable {
     /** SQLite keeps whatever is put in a column, so a number column can hold text; no measure can use it. */
     private QuernException notANumber(ColumnRef column, Object value, int day) {
         return QuernException.data(column.qualified() + " holds " + ValueFormat.quoted(value) + " in a row of "
-                + scan.block().path().entityLink().qualified() + " " + key + " dated " + day / 10_000 + "-"
-                + String.format("%02d-%02d", day / 100 % 100, day % 100) + ", where a number belongs (SQLite keeps"
+                + scan.block().path().entityLink().qualified() + " " + key + " dated "
+                + String.format("%04d-%02d-%02d", day / 10_000, day / 100 % 100, day % 100)
+                + ", where a number belongs (SQLite keeps"
                 + " whatever is put in a column): set such values to numbers, or to NULL for none, in the source,"
                 + " or leave those rows out with a check under rules");
     }
