@@ -22,6 +22,7 @@ import dev.quern.run.MatrixFormat;
 import dev.quern.run.RuleOutcome;
 import dev.quern.run.RuleRunner;
 import dev.quern.sql.LateRows;
+import dev.quern.sql.TextInNumbers;
 import dev.quern.sql.RuleQueries;
 import dev.quern.run.MatrixWriter;
 import dev.quern.run.OutputFolder;
@@ -208,6 +209,7 @@ public final class Quern {
             List<RuleOutcome> rules = RuleRunner.run(RuleQueries.of(compilation.plan()), connection);
             List<LateRows.Query> lateQueries = LateRows.of(compilation.plan());
             Map<String, Long> late = RuleRunner.countLate(lateQueries, connection);
+            RuleRunner.requireNumbers(TextInNumbers.of(compilation.query()), connection);
             timings.put("rules", Duration.ofNanos(System.nanoTime() - rulesStarted));
             CompiledQuery matrixQuery = compilation.query();
             if (source.engine() == Engine.SPARK) {
@@ -310,6 +312,7 @@ public final class Quern {
             progress.stage("checking the recipe against " + source.engine().label());
             Compilation compilation = compile(source, connection, new LinkedHashMap<>());
             Audit leakage = Audit.of(recipe, compilation.plan(), compilation.schema());
+            RuleRunner.requireNumbers(TextInNumbers.of(compilation.query()), connection);
             progress.stage("building the matrix to audit");
             temp = Files.createTempFile("quern-audit-", ".csv");
             try (Writer matrix = Files.newBufferedWriter(temp, StandardCharsets.UTF_8)) {

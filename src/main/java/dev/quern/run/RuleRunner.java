@@ -39,6 +39,37 @@ public final class RuleRunner {
         return outcomes;
     }
 
+    /**
+     * Stops the build when a number column a range join measures holds text (SQLite only; see
+     * {@link dev.quern.sql.TextInNumbers}), naming each such column with the first value found.
+     */
+    public static void requireNumbers(List<dev.quern.sql.TextInNumbers.Query> queries, Connection connection) {
+        List<Diagnostic> found = new ArrayList<>();
+        for (dev.quern.sql.TextInNumbers.Query q : queries) {
+            try (Statement s = connection.createStatement(); ResultSet rs = s.executeQuery(q.sql())) {
+                if (!rs.next()) {
+                    continue;
+                }
+                for (int i = 0; i < q.columns().size(); i++) {
+                    Object value = rs.getObject(i + 1);
+                    if (value != null && !(value instanceof Number)) {
+                        found.add(Diagnostic.at(dev.quern.Position.NONE, q.table() + "." + q.columns().get(i)
+                                + " holds " + ValueFormat.quoted(value) + " in some rows, where a number belongs"
+                                + " (SQLite keeps whatever is put in a column, and would count it as 0): set such"
+                                + " values to numbers, or to NULL for none, in the source, or leave those rows out"
+                                + " with a check under rules"));
+                    }
+                }
+            } catch (SQLException e) {
+                throw QuernException.data("looking for text in the number columns of " + q.table() + " failed: "
+                        + e.getMessage(), e);
+            }
+        }
+        if (!found.isEmpty()) {
+            throw new QuernException(Failure.DATA, found);
+        }
+    }
+
     /** Counts, per event time column, the rows dated where no cutoff reaches: {@code table.column} to count. */
     public static java.util.Map<String, Long> countLate(List<dev.quern.sql.LateRows.Query> queries,
                                                         Connection connection) {

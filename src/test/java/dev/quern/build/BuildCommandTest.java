@@ -122,15 +122,13 @@ class BuildCommandTest {
         assertEquals(2, count(sql, "rides.distance_km"), sql);
     }
 
-    /** SQLite keeps text in a REAL column; each shape stops with a data error that names it, and writes nothing. */
+    /**
+     * SQLite keeps text in a REAL column. The scan stops at it, the range join stops before it runs (SQLite's
+     * sum would count it as 0), and a lookup stops at the matrix column; each names where, and writes nothing.
+     */
     @Test
-    void textInANumberColumnIsADataErrorInEitherShape() throws Exception {
-        Path source = folder.resolve("text-in-numbers.sqlite");
-        Files.copy(SAMPLE, source);
-        try (Connection c = DriverManager.getConnection("jdbc:sqlite:" + source);
-             Statement s = c.createStatement()) {
-            s.executeUpdate("update rides set distance_km = 'twelve' where ride_id = (select min(ride_id) from rides)");
-        }
+    void textInANumberColumnIsADataErrorInEitherShapeAndInALookup() throws Exception {
+        Path source = sampleWith("update rides set distance_km = 'twelve' where ride_id = (select min(ride_id) from rides)");
         Path scanned = folder.resolve("scanned");
         assertEquals(66, quern("build", DEMO, "--source", "jdbc:sqlite:" + source, "--out", scanned.toString(),
                 "--shape", "ordered-scan"));
@@ -139,12 +137,29 @@ class BuildCommandTest {
         Path joined = folder.resolve("joined");
         assertEquals(66, quern("build", DEMO, "--source", "jdbc:sqlite:" + source, "--out", joined.toString(),
                 "--shape", "range-join"));
-        // SQLite's max() of the column is then the text, which no number column can hold.
-        assertTrue(err.toString().contains("the matrix column rides_max_distance_km_365d came out as 'twelve'"),
+        assertTrue(err.toString().contains("rides.distance_km holds 'twelve' in some rows, where a number belongs"),
                 err.toString());
+
+        Path fee = sampleWith("update plans set monthly_fee = 'free' where rowid = (select min(rowid) from plans)");
+        Path looked = folder.resolve("looked-up");
+        assertEquals(66, quern("build", DEMO, "--source", "jdbc:sqlite:" + fee, "--out", looked.toString()));
+        assertTrue(err.toString().contains("the matrix column monthly_fee came out as 'free'"), err.toString());
+
         assertFalse(err.toString().contains("internal error"), err.toString());
-        assertFalse(Files.exists(scanned.resolve("matrix.csv")));
-        assertFalse(Files.exists(joined.resolve("matrix.csv")));
+        for (Path out : List.of(scanned, joined, looked)) {
+            assertFalse(Files.exists(out.resolve("matrix.csv")), out.toString());
+        }
+    }
+
+    /** A copy of the sample with one statement applied. */
+    private Path sampleWith(String update) throws Exception {
+        Path source = Files.createTempFile(folder, "sample-", ".sqlite");
+        Files.copy(SAMPLE, source, java.nio.file.StandardCopyOption.REPLACE_EXISTING);
+        try (Connection c = DriverManager.getConnection("jdbc:sqlite:" + source);
+             Statement s = c.createStatement()) {
+            s.executeUpdate(update);
+        }
+        return source;
     }
 
     @Test
