@@ -165,9 +165,8 @@ final class BlockScanner implements AutoCloseable {
         return QuernException.data(column.qualified() + " holds " + ValueFormat.quoted(value) + " in a row of "
                 + scan.block().path().entityLink().qualified() + " " + key + " dated "
                 + String.format("%04d-%02d-%02d", day / 10_000, day / 100 % 100, day % 100)
-                + ", where a number belongs (SQLite keeps"
-                + " whatever is put in a column): set such values to numbers, or to NULL for none, in the source,"
-                + " or leave those rows out with a check under rules");
+                + ", where a number belongs (SQLite keeps whatever is put in a column): "
+                + ValueFormat.TEXT_IN_NUMBERS_CURE);
     }
 
     /** Engines order the days as {@link Days} does; this only guards against one that does not. */

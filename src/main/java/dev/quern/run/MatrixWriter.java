@@ -144,9 +144,8 @@ public final class MatrixWriter {
         private static QuernException notANumber(OutputColumn column, Object value) {
             return QuernException.data("the matrix column " + column.name() + " came out as "
                     + ValueFormat.quoted(value) + ", where a number belongs: a column it is computed from holds text"
-                    + " in some rows (SQLite keeps whatever is put in a column; 'quern lineage' names the column)."
-                    + " Set such values to numbers, or to NULL for none, in the source, or leave those rows out"
-                    + " with a check under rules");
+                    + " in some rows (SQLite keeps whatever is put in a column; 'quern lineage' names the column): "
+                    + ValueFormat.TEXT_IN_NUMBERS_CURE);
         }
 
         void flush() throws IOException {

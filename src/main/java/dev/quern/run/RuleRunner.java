@@ -55,9 +55,8 @@ public final class RuleRunner {
                     if (value != null && !(value instanceof Number)) {
                         found.add(Diagnostic.at(dev.quern.Position.NONE, q.table() + "." + q.columns().get(i)
                                 + " holds " + ValueFormat.quoted(value) + " in some rows, where a number belongs"
-                                + " (SQLite keeps whatever is put in a column, and would count it as 0): set such"
-                                + " values to numbers, or to NULL for none, in the source, or leave those rows out"
-                                + " with a check under rules"));
+                                + " (SQLite keeps whatever is put in a column, and would count it as 0): "
+                                + ValueFormat.TEXT_IN_NUMBERS_CURE));
                     }
                 }
             } catch (SQLException e) {

@@ -71,6 +71,10 @@ public final class ValueFormat {
         };
     }
 
+    /** What to do about text in a number column: the end of every message that finds some. */
+    static final String TEXT_IN_NUMBERS_CURE = "set such values to numbers, or to NULL for none, in the source, or"
+            + " leave those rows out with a check under rules";
+
     /** A value for a message: in quotes, cut short when long, so one odd cell cannot flood a terminal. */
     public static String quoted(Object value) {
         String text = String.valueOf(value);
