@@ -225,22 +225,26 @@ public final class Quern {
             Plan table = compilation.plan();
             // The audit screens the raw matrix, whose columns are the plan's: before encoding, when there is one.
             List<AuditReport> audited = new ArrayList<>();
+            // The audit's first pass over the matrix takes the rows as they are written. On Spark the evidence
+            // is read on the build's connection, so it is read before the write holds that connection.
+            Audit.SourceEvidence sparkEvidence = source.engine() == Engine.SPARK ? evidence.get() : null;
+            Audit.Watch watch = leakage.watch(sparkEvidence != null ? () -> sparkEvidence : evidence::get);
             java.util.function.Consumer<Path> audit = matrix -> {
                 progress.stage("auditing for leakage");
                 long auditStart = System.nanoTime();
-                audited.add(leakage.run(evidence.get(), matrix));
+                audited.add(leakage.run(watch, matrix));
                 timings.put("audit", Duration.ofNanos(System.nanoTime() - auditStart));
                 timings.put("audit_source", Duration.ofNanos(sourceAuditNanos[0]));
             };
             if (encoding.isEmpty() && frozen.isEmpty()) {
                 try (Writer matrix = out.open(MATRIX)) {
-                    run = MatrixWriter.write(rows, connection, matrix, progress);
+                    run = MatrixWriter.write(rows, connection, matrix, progress, watch);
                 }
                 audit.accept(out.pending(MATRIX));
             } else {
                 // The encode stage: the raw matrix goes to a scratch file, then is fitted and encoded into MATRIX.
                 Encoder.Encoded encoded = Encoder.build(encoding, frozen, recipeSha256, out,
-                        raw -> MatrixWriter.write(rows, connection, raw, progress), audit, progress);
+                        raw -> MatrixWriter.write(rows, connection, raw, progress, watch), audit, progress);
                 run = encoded.run();
                 table = encoded.plan();
                 // Spark's Parquet holds the raw columns; the matrix of an encoding recipe is the encoded CSV.
@@ -315,11 +319,13 @@ public final class Quern {
             RuleRunner.requireNumbers(TextInNumbers.of(compilation.query()), connection);
             progress.stage("building the matrix to audit");
             temp = Files.createTempFile("quern-audit-", ".csv");
+            Audit.SourceEvidence evidence = leakage.readSource(connection);
+            Audit.Watch watch = leakage.watch(() -> evidence);
             try (Writer matrix = Files.newBufferedWriter(temp, StandardCharsets.UTF_8)) {
-                MatrixWriter.write(compilation.query(), connection, matrix, progress);
+                MatrixWriter.write(compilation.query(), connection, matrix, progress, watch);
             }
             progress.stage("auditing for leakage");
-            return leakage.run(connection, temp);
+            return leakage.run(watch, temp);
         } catch (IOException e) {
             throw QuernException.output("cannot write the temporary matrix to audit: " + e.getMessage(), e);
         } catch (SQLException e) {

@@ -18,6 +18,8 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
+import java.util.function.Consumer;
+import java.util.function.Supplier;
 
 /**
  * The leakage audit: checks that no column of a built matrix can see past its cutoff, and reports what it
@@ -89,12 +91,31 @@ public final class Audit {
 
     /** Runs every check, with the source's part read beforehand by {@link #readSource}; evidence serves one run. */
     public AuditReport run(SourceEvidence evidence, Path matrix) {
+        MatrixScan scan = new MatrixScan(matrix, plan.columns(), evidence.since, memory);
+        return run(evidence, scan, scan.first());
+    }
+
+    /**
+     * Watches the matrix as it is written, taking the first pass over its rows from the records handed to
+     * {@link Watch#accept} instead of reading the file back. The evidence is asked for at the first row, and
+     * serves this one watch.
+     */
+    public Watch watch(Supplier<SourceEvidence> evidence) {
+        return new Watch(evidence);
+    }
+
+    /** Runs every check on a matrix whose rows {@code watched} saw written to {@code matrix}. */
+    public AuditReport run(Watch watched, Path matrix) {
+        MatrixScan.First first = watched.first();
+        MatrixScan scan = new MatrixScan(matrix, plan.columns(), watched.evidence.since, memory);
+        return run(watched.evidence, scan, scan.confirmed(first));
+    }
+
+    private AuditReport run(SourceEvidence evidence, MatrixScan scan, MatrixScan.First first) {
         Results results = new Results();
         new SourceChecks(recipe, plan, evidence.counted, results).run();
         PlanChecks planChecks = new PlanChecks(recipe, plan, boundaries, results);
         planChecks.horizon();
-        MatrixScan scan = new MatrixScan(matrix, plan.columns(), evidence.since, memory);
-        MatrixScan.First first = scan.first();
         double auc = recipe.audit().auc().orElse(DEFAULT_AUC);
         double rho = recipe.audit().rho().orElse(DEFAULT_RHO);
         MatrixChecks matrixChecks = new MatrixChecks(plan, auc, rho, results);
@@ -107,6 +128,33 @@ public final class Audit {
         List<Finding> findings = new ArrayList<>(results.findings);
         findings.sort(Comparator.comparing(Finding::check));
         return new AuditReport(plan.recipeName(), auc, rho, checks, acknowledge(findings));
+    }
+
+    /**
+     * The matrix's records as the writer writes them (the cells' text, in the plan's column order; the array
+     * may be reused for the next record), for the first pass of the audit's matrix checks.
+     */
+    public final class Watch implements Consumer<String[]> {
+        private final Supplier<SourceEvidence> supplier;
+        private SourceEvidence evidence;
+        private MatrixScan.First first;
+
+        private Watch(Supplier<SourceEvidence> supplier) {
+            this.supplier = supplier;
+        }
+
+        @Override
+        public void accept(String[] record) {
+            first().add(i -> record[i]);
+        }
+
+        private MatrixScan.First first() {
+            if (first == null) {
+                evidence = supplier.get();
+                first = new MatrixScan.First(plan.columns(), evidence.since);
+            }
+            return first;
+        }
     }
 
     /**

@@ -31,6 +31,8 @@ final class EntitySince {
     private final long[] hashes;
     private final int[] days;
     private long violations;
+    private String lastCutoff;
+    private long lastDay;
     private final List<String> examples = new ArrayList<>();
 
     private EntitySince(String keyName, String sinceName, long[] hashes, int[] days) {
@@ -100,13 +102,16 @@ final class EntitySince {
         if (at < 0) {
             return;
         }
-        LocalDate cutoffDay;
-        try {
-            cutoffDay = LocalDate.parse(cutoff.substring(0, Math.min(10, cutoff.length())));
-        } catch (DateTimeParseException e) {
-            return;
+        // Rows come cutoff by cutoff: the day is parsed once per run of rows at the same cutoff.
+        if (!cutoff.equals(lastCutoff)) {
+            lastCutoff = cutoff;
+            try {
+                lastDay = LocalDate.parse(cutoff.substring(0, Math.min(10, cutoff.length()))).toEpochDay();
+            } catch (DateTimeParseException e) {
+                lastDay = Long.MAX_VALUE;
+            }
         }
-        if (days[at] > cutoffDay.toEpochDay()) {
+        if (days[at] > lastDay) {
             violations++;
             if (examples.size() < SourceRows.EXAMPLES) {
                 examples.add(keyName + " " + key + " at cutoff " + cutoff + ": " + sinceName + " "

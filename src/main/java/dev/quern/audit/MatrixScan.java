@@ -23,6 +23,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import java.util.TreeMap;
+import java.util.function.IntFunction;
 import java.util.stream.IntStream;
 
 /**
@@ -69,7 +70,7 @@ final class MatrixScan {
         this.budget = budget;
     }
 
-    private int indexOf(Role role) {
+    private static int indexOf(List<OutputColumn> columns, Role role) {
         for (int i = 0; i < columns.size(); i++) {
             if (columns.get(i).role() == role) {
                 return i;
@@ -78,42 +79,27 @@ final class MatrixScan {
         return -1;
     }
 
-    /** The first pass: the cohort facts, the labels, and the level counts of text columns. */
+    /** The first pass, read from the file: the cohort facts, the labels, and the level counts of text columns. */
     First first() {
-        int keyAt = indexOf(Role.KEY);
-        int cutoffAt = indexOf(Role.CUTOFF);
-        int labelAt = indexOf(Role.LABEL);
-        First first = new First(labelAt);
-        for (int i = 0; i < columns.size(); i++) {
-            if (columns.get(i).role() == Role.FEATURE && kindOf(columns.get(i).type()) == Kind.TEXT) {
-                first.levels.put(i, new HashMap<>());
-            }
-        }
-        KeyRepeats repeats = new KeyRepeats();
-        long row = 0;
-        // Text levels are counted only against a label, so without one the pass reads the key and cutoff alone.
-        int[] needed = labelAt < 0 ? new int[] {keyAt, cutoffAt}
-                : IntStream.concat(IntStream.of(keyAt, cutoffAt, labelAt),
-                        first.levels.keySet().stream().mapToInt(Integer::intValue)).toArray();
-        try (CsvColumns csv = open(needed)) {
+        First first = new First(columns, since);
+        try (CsvColumns csv = open(first.needed())) {
             while (csv.next()) {
-                String key = csv.get(keyAt);
-                String cutoff = csv.get(cutoffAt);
-                repeats.add(key, cutoff);
-                since.check(key, cutoff);
-                if (labelAt >= 0) {
-                    first.label(row, csv.get(labelAt), cutoff);
-                    first.countLevels(csv);
-                }
-                row++;
+                first.add(csv::get);
             }
         } catch (IOException | UncheckedIOException e) {
             throw unreadable(e);
         }
-        repeats.endCutoff();
-        first.rows = row;
-        first.repeats = repeats.candidates.isEmpty() ? new ConfirmedRepeats(0, List.of())
-                : confirmRepeats(keyAt, cutoffAt, repeats.candidates);
+        return confirmed(first);
+    }
+
+    /**
+     * A first pass fed its rows as they were written ({@link First#add}) made whole: repeats of a (key,
+     * cutoff) pair that its hashes suggest are confirmed against the file.
+     */
+    First confirmed(First first) {
+        first.repeats.endCutoff();
+        first.confirmed = first.repeats.candidates.isEmpty() ? new ConfirmedRepeats(0, List.of())
+                : confirmRepeats(first.keyAt, first.cutoffAt, first.repeats.candidates);
         return first;
     }
 
@@ -328,10 +314,13 @@ final class MatrixScan {
 
     /** A 64-bit hash of a key at a cutoff (FNV-1a over both texts): for finding repeats in little memory. */
     static long cutoffHash(String key, String cutoff) {
-        long h = 0xcbf29ce484222325L;
-        String both = cutoff + '\u0000' + key;
-        for (int i = 0; i < both.length(); i++) {
-            h ^= both.charAt(i);
+        // Run once for every matrix row: the texts are hashed in turn rather than joined into a new one.
+        return fnv(fnv(fnv(0xcbf29ce484222325L, cutoff), "\u0000"), key);
+    }
+
+    private static long fnv(long h, String text) {
+        for (int i = 0; i < text.length(); i++) {
+            h ^= text.charAt(i);
             h *= 0x100000001b3L;
         }
         return h;
@@ -369,24 +358,60 @@ final class MatrixScan {
         }
     }
 
-    /** What the first pass keeps: labels, which rows have one, per-cutoff counts and text level counts. */
-    final class First {
+    /**
+     * The first pass over the matrix's rows, one at a time: from the file ({@link #first()}) or from the
+     * writer as it writes them. Keeps the labels, which rows have one, per-cutoff counts, text level counts,
+     * the key hashes of the current cutoff, and notes entities before their since date.
+     */
+    static final class First {
+        final int keyAt;
+        final int cutoffAt;
         final int labelAt;
+        private final EntitySince since;
         final BitSet labelled = new BitSet();
         final Map<String, Long> labelledPerCutoff = new LinkedHashMap<>();
         final Map<Integer, Map<String, long[]>> levels = new LinkedHashMap<>();
+        private final KeyRepeats repeats = new KeyRepeats();
         private double[] labels = new double[1024];
         private int count;
         boolean binary = true;
         long rows;
-        ConfirmedRepeats repeats;
+        private ConfirmedRepeats confirmed;
         private String pendingLabel;
 
-        First(int labelAt) {
-            this.labelAt = labelAt;
+        First(List<OutputColumn> columns, EntitySince since) {
+            this.keyAt = indexOf(columns, Role.KEY);
+            this.cutoffAt = indexOf(columns, Role.CUTOFF);
+            this.labelAt = indexOf(columns, Role.LABEL);
+            this.since = since;
+            for (int i = 0; i < columns.size(); i++) {
+                if (columns.get(i).role() == Role.FEATURE && kindOf(columns.get(i).type()) == Kind.TEXT) {
+                    levels.put(i, new HashMap<>());
+                }
+            }
         }
 
-        void label(long row, String text, String cutoff) {
+        /** The columns the pass reads: text levels count only against a label, so without one, key and cutoff. */
+        int[] needed() {
+            return labelAt < 0 ? new int[] {keyAt, cutoffAt}
+                    : IntStream.concat(IntStream.of(keyAt, cutoffAt, labelAt),
+                            levels.keySet().stream().mapToInt(Integer::intValue)).toArray();
+        }
+
+        /** The next row, each cell as its text in the file, by column index. */
+        void add(IntFunction<String> cell) {
+            String key = cell.apply(keyAt);
+            String cutoff = cell.apply(cutoffAt);
+            repeats.add(key, cutoff);
+            since.check(key, cutoff);
+            if (labelAt >= 0) {
+                label(rows, cell.apply(labelAt), cutoff);
+                countLevels(cell);
+            }
+            rows++;
+        }
+
+        private void label(long row, String text, String cutoff) {
             pendingLabel = null;
             if (text.isEmpty()) {
                 return;
@@ -410,7 +435,7 @@ final class MatrixScan {
         }
 
         /** Counts each text feature's levels by label, while the label could still be binary. */
-        void countLevels(CsvColumns r) {
+        private void countLevels(IntFunction<String> cell) {
             if (pendingLabel == null || !binary) {
                 return;
             }
@@ -420,7 +445,7 @@ final class MatrixScan {
                 if (counts == null) {
                     continue;
                 }
-                String level = r.get(e.getKey());
+                String level = cell.apply(e.getKey());
                 long[] c = counts.get(level);
                 if (c == null) {
                     if (counts.size() >= MOST_LEVELS) {
@@ -439,8 +464,8 @@ final class MatrixScan {
         }
 
         CohortFacts cohort() {
-            return new CohortFacts(rows, since.violations(), since.examples(), repeats.rows(), repeats.examples(),
-                    labelledPerCutoff);
+            return new CohortFacts(rows, since.violations(), since.examples(), confirmed.rows(),
+                    confirmed.examples(), labelledPerCutoff);
         }
     }
 }

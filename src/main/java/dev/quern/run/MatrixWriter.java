@@ -39,7 +39,12 @@ public final class MatrixWriter {
     private MatrixWriter() {
     }
 
-    public static RunResult write(CompiledQuery query, Connection connection, Writer out, Progress progress) {
+    /**
+     * Runs {@code query} and writes its rows to {@code out} as CSV, handing each record to {@code written}
+     * as it goes (the cells' text; the array is reused for the next record).
+     */
+    public static RunResult write(CompiledQuery query, Connection connection, Writer out, Progress progress,
+                                  Consumer<String[]> written) {
         List<OutputColumn> columns = query.plan().columns();
         long started = System.nanoTime();
         long[] firstRow = {0};
@@ -51,7 +56,7 @@ public final class MatrixWriter {
                 CsvRecords csv = new CsvRecords(out);
                 csv.write(columns.stream().map(OutputColumn::name).toArray(String[]::new));
                 // With scans, the merge counts the rows; writing them out after it is quick and says nothing.
-                Rows rows = new Rows(columns, csv, query.scanned() ? Progress.SILENT : progress);
+                Rows rows = new Rows(columns, csv, query.scanned() ? Progress.SILENT : progress, written);
                 if (query.scanned()) {
                     new ScannedRows(query).run(connection, progress, () -> firstRow[0] = System.nanoTime(), rows);
                 } else {
@@ -93,6 +98,7 @@ public final class MatrixWriter {
         private final List<OutputColumn> columns;
         private final CsvRecords csv;
         private final Progress progress;
+        private final Consumer<String[]> written;
         private final List<ColumnStats> stats = new ArrayList<>();
         private final int cutoffIndex;
         private final int labelIndex;
@@ -102,10 +108,11 @@ public final class MatrixWriter {
         private final ValueType[] types;
         private long rows;
 
-        Rows(List<OutputColumn> columns, CsvRecords csv, Progress progress) {
+        Rows(List<OutputColumn> columns, CsvRecords csv, Progress progress, Consumer<String[]> written) {
             this.columns = columns;
             this.csv = csv;
             this.progress = progress;
+            this.written = written;
             columns.forEach(c -> stats.add(new ColumnStats(c.name(), c.type())));
             this.cutoffIndex = indexOf(columns, Role.CUTOFF);
             this.labelIndex = columns.stream().map(OutputColumn::role).toList().indexOf(Role.LABEL);
@@ -128,6 +135,7 @@ public final class MatrixWriter {
             } catch (IOException e) {
                 throw new UncheckedIOException(e);
             }
+            written.accept(record);
             perCutoff.merge(record[cutoffIndex], 1L, Long::sum);
             if (labelIndex >= 0) {
                 OutputColumn labelColumn = columns.get(labelIndex);

@@ -373,32 +373,62 @@ class PlantedLeaksTest {
         }
     }
 
-    /** A compiled recipe with its matrix written to a file, ready to audit (more than once). */
-    private record Built(Compilation compilation, Path matrix) {
+    /**
+     * A compiled recipe with its matrix written to a file, ready to audit (more than once). An audit reads the
+     * file back, and also watches the matrix written again (or, when the test changed the file, is handed the
+     * file's records) and must reach the same report: every planted leak is found both ways.
+     */
+    private record Built(Compilation compilation, Path matrix, boolean changed) {
         AuditReport audit(UnaryOperator<Audit> tweak) {
             try (Connection connection = compilation.source().open()) {
-                Audit audit = tweak.apply(Audit.of(compilation.recipe(), compilation.plan(), compilation.schema()));
-                return audit.run(connection, matrix);
+                AuditReport read = tweak.apply(audit()).run(connection, matrix);
+                Audit watching = tweak.apply(audit());
+                Audit.SourceEvidence evidence = watching.readSource(connection);
+                Audit.Watch watch = watching.watch(() -> evidence);
+                // A planted row is not the writer's: the watch is handed the changed file's records instead.
+                Path watched = changed ? feed(watch) : write(compilation, watch);
+                assertEquals(read.json(), watching.run(watch, watched).json(),
+                        "the audit of the matrix as it was written differs from the audit of the file read back");
+                return read;
             } catch (SQLException e) {
                 throw new IllegalStateException(e);
             }
         }
 
+        private Path feed(Audit.Watch watch) {
+            try (var parser = MatrixWriter.FORMAT.builder().setHeader().setSkipHeaderRecord(true).get()
+                    .parse(Files.newBufferedReader(matrix, StandardCharsets.UTF_8))) {
+                parser.forEach(record -> watch.accept(record.values()));
+            } catch (IOException e) {
+                throw new UncheckedIOException(e);
+            }
+            return matrix;
+        }
+
+        private Audit audit() {
+            return Audit.of(compilation.recipe(), compilation.plan(), compilation.schema());
+        }
+
         Built withMatrix(Consumer<Path> change) {
             change.accept(matrix);
-            return this;
+            return new Built(compilation, matrix, true);
         }
     }
 
     private static Built build(Path recipe) {
         Compilation compilation = Quern.load(recipe).compile();
+        return new Built(compilation, write(compilation, record -> { }), false);
+    }
+
+    private static Path write(Compilation compilation, Consumer<String[]> watch) {
+        Path recipe = Path.of(compilation.recipe().file());
         try {
             Path matrix = Files.createTempFile(recipe.getParent(), "matrix-", ".csv");
             try (Connection connection = compilation.source().open();
                  Writer out = Files.newBufferedWriter(matrix, StandardCharsets.UTF_8)) {
-                MatrixWriter.write(compilation.query(), connection, out, Progress.SILENT);
+                MatrixWriter.write(compilation.query(), connection, out, Progress.SILENT, watch);
             }
-            return new Built(compilation, matrix);
+            return matrix;
         } catch (IOException | SQLException e) {
             throw new IllegalStateException(e);
         }
