@@ -30,12 +30,16 @@ final class BlockScanner implements AutoCloseable {
     private final ColumnRef[] numberInput;
     private final java.util.Map<LocalDate, int[]> boundaries = new java.util.HashMap<>();
     private static final Object[] NONE = new Object[0];
+    /** One per input, for the totals its windows share; the last for the measures that take no input. */
+    private final Measures[] measures;
 
     /** The current entity: its key and its rows' days and inputs, in day order. */
     private Object key;
     private int size;
     private int[] days = new int[64];
     private Object[][] values;
+    /** The inputs of number columns as doubles (0 where the value is null), for the measures that add them. */
+    private double[][] numbers;
 
     /** The next entity's first row, read ahead; {@code exhausted} once the result has no more rows. */
     private boolean pending;
@@ -50,6 +54,11 @@ final class BlockScanner implements AutoCloseable {
         this.aggregates = block.aggregates();
         this.inputs = types.length - (BlockScan.FIRST_INPUT - 1);
         this.values = new Object[inputs][64];
+        this.numbers = new double[inputs][];
+        this.measures = new Measures[inputs + 1];
+        for (int i = 0; i <= inputs; i++) {
+            measures[i] = new Measures();
+        }
         this.aggregateInput = new int[aggregates.size()];
         this.numberInput = new ColumnRef[inputs];
         for (int i = 0; i < aggregates.size(); i++) {
@@ -57,6 +66,7 @@ final class BlockScanner implements AutoCloseable {
             ColumnRef input = aggregates.get(i).input().orElse(null);
             if (aggregateInput[i] >= 0 && input != null && input.type().isNumber()) {
                 numberInput[aggregateInput[i]] = input;
+                numbers[aggregateInput[i]] = new double[64];
             }
         }
     }
@@ -78,11 +88,17 @@ final class BlockScanner implements AutoCloseable {
             boundaries.put(cutoff, bounds);
         }
         int to = has ? lowerBound(bounds[aggregates.size()]) : 0;
+        for (Measures m : measures) {
+            m.forget();
+        }
         for (int i = 0; i < aggregates.size(); i++) {
             Aggregate a = aggregates.get(i);
             int from = has ? lowerBound(bounds[i]) : 0;
-            Object[] input = aggregateInput[i] >= 0 ? values[aggregateInput[i]] : NONE;
-            out[offsets[i]] = Measures.of(a.kind(), input, days, from, Math.max(from, to), cutoff, a.column());
+            int at = aggregateInput[i];
+            out[offsets[i]] = at >= 0
+                    ? measures[at].of(a.kind(), values[at], numbers[at], days, from, Math.max(from, to), cutoff,
+                            a.column())
+                    : measures[inputs].of(a.kind(), NONE, null, days, from, Math.max(from, to), cutoff, a.column());
         }
     }
 
@@ -147,6 +163,9 @@ final class BlockScanner implements AutoCloseable {
             days = Arrays.copyOf(days, grown);
             for (int i = 0; i < inputs; i++) {
                 values[i] = Arrays.copyOf(values[i], grown);
+                if (numbers[i] != null) {
+                    numbers[i] = Arrays.copyOf(numbers[i], grown);
+                }
             }
         }
         days[size] = Days.of(ValueFormat.read(rows, 2, types[1]), dayColumn);
@@ -156,6 +175,9 @@ final class BlockScanner implements AutoCloseable {
                 throw notANumber(numberInput[i], value, days[size]);
             }
             values[i][size] = value;
+            if (numbers[i] != null) {
+                numbers[i][size] = value == null ? 0.0 : ((Number) value).doubleValue();
+            }
         }
         size++;
     }
@@ -178,14 +200,22 @@ final class BlockScanner implements AutoCloseable {
         Arrays.sort(order, (a, b) -> Integer.compare(days[a], days[b]));
         int[] d = new int[days.length];
         Object[][] v = new Object[inputs][days.length];
+        double[][] n = new double[inputs][];
+        for (int j = 0; j < inputs; j++) {
+            n[j] = numbers[j] == null ? null : new double[days.length];
+        }
         for (int i = 0; i < size; i++) {
             d[i] = days[order[i]];
             for (int j = 0; j < inputs; j++) {
                 v[j][i] = values[j][order[i]];
+                if (n[j] != null) {
+                    n[j][i] = numbers[j][order[i]];
+                }
             }
         }
         days = d;
         values = v;
+        numbers = n;
     }
 
     /** The first held row whose day is on or after {@code day}. */

@@ -14,22 +14,34 @@ import java.util.Set;
  */
 final class Measures {
 
-    private Measures() {
+    /**
+     * The compensated totals already taken over windows of the current (entity, cutoff): the mean and the
+     * standard deviation of a window share one, which the second would otherwise take again.
+     */
+    private final long[] memoWindow = new long[8];
+    private final Total[] memo = new Total[8];
+    private int memoSize;
+
+    /** Forgets the totals taken: the next measures are of another input, entity or cutoff. */
+    void forget() {
+        memoSize = 0;
     }
 
     /**
      * {@code kind} over rows {@code [from, to)}: {@code values} are the input of each row (null for count
-     * and the day measures), {@code days} their days as {@link Days} numbers.
+     * and the day measures), {@code numbers} the same values as doubles where they are numbers (null when the
+     * input is not a number column), {@code days} their days as {@link Days} numbers.
      */
-    static Object of(MeasureKind kind, Object[] values, int[] days, int from, int to, LocalDate cutoff, String column) {
+    Object of(MeasureKind kind, Object[] values, double[] numbers, int[] days, int from, int to, LocalDate cutoff,
+              String column) {
         return switch (kind) {
             case COUNT -> (long) (to - from);
             case SUM -> sum(values, from, to, column);
-            case MEAN -> mean(values, from, to);
+            case MEAN -> mean(total(values, numbers, from, to));
             case MIN -> extreme(values, from, to, -1);
             case MAX -> extreme(values, from, to, 1);
             case DISTINCT -> distinct(values, from, to);
-            case STDDEV -> stddev(values, from, to);
+            case STDDEV -> stddev(values, numbers, from, to);
             case DAYS_SINCE_FIRST -> to > from ? Days.between(days[from], cutoff) : null;
             case DAYS_SINCE_LAST -> to > from ? Days.between(days[to - 1], cutoff) : null;
         };
@@ -70,8 +82,7 @@ final class Measures {
         return exact != null ? exact : (Object) whole;
     }
 
-    private static Object mean(Object[] values, int from, int to) {
-        Total total = total(values, from, to);
+    private static Object mean(Total total) {
         return total.n == 0 ? null : total.sum / total.n;
     }
 
@@ -79,21 +90,32 @@ final class Measures {
     private record Total(double sum, long n) {
     }
 
-    private static Total total(Object[] values, int from, int to) {
+    private Total total(Object[] values, double[] numbers, int from, int to) {
+        long window = (long) from << 32 | to;
+        for (int i = 0; i < memoSize; i++) {
+            if (memoWindow[i] == window) {
+                return memo[i];
+            }
+        }
         CompensatedSum sum = new CompensatedSum();
         long n = 0;
         for (int i = from; i < to; i++) {
             if (values[i] != null) {
-                sum.add(((Number) values[i]).doubleValue());
+                sum.add(numbers != null ? numbers[i] : ((Number) values[i]).doubleValue());
                 n++;
             }
         }
-        return new Total(sum.value(), n);
+        Total total = new Total(sum.value(), n);
+        if (memoSize < memo.length) {
+            memoWindow[memoSize] = window;
+            memo[memoSize++] = total;
+        }
+        return total;
     }
 
     /** The sample standard deviation in two passes (deviations from the mean), which NIST's hard cases need. */
-    private static Object stddev(Object[] values, int from, int to) {
-        Total total = total(values, from, to);
+    private Object stddev(Object[] values, double[] numbers, int from, int to) {
+        Total total = total(values, numbers, from, to);
         long n = total.n;
         if (n < 2) {
             return null;
@@ -102,7 +124,7 @@ final class Measures {
         CompensatedSum squares = new CompensatedSum();
         for (int i = from; i < to; i++) {
             if (values[i] != null) {
-                double d = ((Number) values[i]).doubleValue() - mean;
+                double d = (numbers != null ? numbers[i] : ((Number) values[i]).doubleValue()) - mean;
                 squares.add(d * d);
             }
         }
