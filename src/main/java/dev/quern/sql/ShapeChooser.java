@@ -38,11 +38,11 @@ final class ShapeChooser {
             case SQLITE -> new ShapeChoice(block, BlockShape.ORDERED_SCAN,
                     "SQLite joins by nested loops: a range join probes the path once per (entity, cutoff) and reads"
                             + " each row once per cutoff whose window holds it; one scan ordered by key reads it once"
-                            + " (the benchmark at 1M and 2M rides: 30.8 and 75.2 s range join, 6.4 and 11.0 s ordered scan,"
+                            + " (the benchmark at 1M and 2M rides: 29.2 and 60.2 s range join, 5.4 and 9.7 s ordered scan,"
                             + " whole builds, medians of three)");
             case DUCKDB -> new ShapeChoice(block, BlockShape.ORDERED_SCAN,
                     "DuckDB sorts and streams a table a little faster than it joins every row to each cutoff's"
-                            + " cohort (the benchmark at 1M and 2M rides: 5.0 and 7.2 s ordered scan, 5.7 and 10.4 s"
+                            + " cohort (the benchmark at 1M and 2M rides: 4.1 and 6.3 s ordered scan, 4.6 and 9.4 s"
                             + " range join, whole builds, medians of three)");
             case POSTGRES, MARIADB, MYSQL -> new ShapeChoice(block, BlockShape.RANGE_JOIN,
                     "the engine's hash join and grouping compute every window in one pass; the ordered scan has"
