@@ -285,7 +285,7 @@ public final class Quern {
             }
             out.write(REPORT, HtmlReport.render(table, run, lineage,
                     new HtmlReport.Facts(recipe.file(), recipeSha256, Version.current(), source.display(), builtAt),
-                    drift, Thresholds.DEFAULT));
+                    new HtmlReport.Checks(leaks, rules), drift, Thresholds.DEFAULT));
             boolean writtenBySpark = source.engine() == Engine.SPARK && encoding.isEmpty() && frozen.isEmpty();
             if (format == MatrixFormat.PARQUET) {
                 if (!writtenBySpark) {

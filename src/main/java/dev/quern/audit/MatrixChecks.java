@@ -52,7 +52,7 @@ final class MatrixChecks {
                             + " the entity.",
                     key.definedAt()));
         }
-        results.pass(Check.COHORT, count(facts.rows()) + " rows read back from the matrix: "
+        results.pass(Check.COHORT, count(facts.rows()) + " rows of the matrix checked: "
                 + (sinceChecked ? count(facts.beforeSince()) + " at a cutoff before their entity's since date ("
                 + since + "), " : "no since date to compare with, ")
                 + count(facts.repeated()) + " repeating a (" + key.name() + ", cutoff) pair.");

@@ -1,11 +1,16 @@
 package dev.quern.report;
 
+import dev.quern.audit.AuditReport;
+import dev.quern.audit.CheckResult;
+import dev.quern.audit.Finding;
+import dev.quern.audit.Severity;
 import dev.quern.plan.LabelPlan;
 import dev.quern.plan.OutputColumn;
 import dev.quern.plan.Plan;
 import dev.quern.plan.Role;
 import dev.quern.recipe.LabelSpec;
 import dev.quern.run.ColumnStats;
+import dev.quern.run.RuleOutcome;
 import dev.quern.run.RunResult;
 import java.time.Instant;
 import java.time.LocalDate;
@@ -18,8 +23,8 @@ import java.util.Optional;
 /**
  * report.html: one self-contained page about a build, for people to look at and to print. It holds the
  * recipe summary, the data dictionary as a table a search box filters, a chart of every feature and the
- * label (inline SVG), the label balance per cutoff, point-in-time notes, and the drift against an earlier
- * build when one is given. Nothing is fetched: no scripts, styles or fonts from elsewhere.
+ * label (inline SVG), the label balance per cutoff, point-in-time notes, the leakage audit's verdict and
+ * the data rules' outcomes, and the drift against an earlier build when one is given. Nothing is fetched: no scripts, styles or fonts from elsewhere.
  *
  * <p>The page is the same byte for byte when the same recipe is built on the same source, except for one
  * line: the build time, in the element with id {@value #BUILT_AT_ID}, on a line of its own.
@@ -28,6 +33,14 @@ public final class HtmlReport {
 
     /** The id of the one element that differs between rebuilds: the build time. */
     public static final String BUILT_AT_ID = "built-at";
+
+    /** What the build checked: the leakage audit of the matrix, and the recipe's data rules measured on the source. */
+    public record Checks(AuditReport audit, List<RuleOutcome> rules) {
+        public Checks {
+            Objects.requireNonNull(audit, "audit");
+            rules = List.copyOf(rules);
+        }
+    }
 
     /** Facts about the build that the plan and run do not hold. */
     public record Facts(String recipeFile, String recipeSha256, String toolVersion, String sourceDisplay,
@@ -45,24 +58,26 @@ public final class HtmlReport {
     private final RunResult run;
     private final Lineage lineage;
     private final Facts facts;
+    private final Checks checks;
     private final Optional<Comparison> drift;
     private final Thresholds limits;
     private final StringBuilder out = new StringBuilder();
 
-    private HtmlReport(Plan plan, RunResult run, Lineage lineage, Facts facts, Optional<Comparison> drift,
-                       Thresholds limits) {
+    private HtmlReport(Plan plan, RunResult run, Lineage lineage, Facts facts, Checks checks,
+                       Optional<Comparison> drift, Thresholds limits) {
         this.plan = plan;
         this.run = run;
         this.lineage = lineage;
         this.facts = facts;
+        this.checks = checks;
         this.drift = drift;
         this.limits = limits;
     }
 
     /** The page; {@code drift} is the comparison with an earlier build, if one was asked for. */
-    public static String render(Plan plan, RunResult run, Lineage lineage, Facts facts, Optional<Comparison> drift,
-                                Thresholds limits) {
-        return new HtmlReport(plan, run, lineage, facts, drift, limits).page();
+    public static String render(Plan plan, RunResult run, Lineage lineage, Facts facts, Checks checks,
+                                Optional<Comparison> drift, Thresholds limits) {
+        return new HtmlReport(plan, run, lineage, facts, checks, drift, limits).page();
     }
 
     private String page() {
@@ -80,7 +95,8 @@ public final class HtmlReport {
         if (plan.label().isPresent()) {
             out.append(" <a href=\"#label-balance\">Label balance</a>");
         }
-        out.append(" <a href=\"#point-in-time\">Point in time</a>");
+        out.append(" <a href=\"#point-in-time\">Point in time</a> <a href=\"#audit\">Leakage audit</a>")
+                .append(" <a href=\"#rules\">Data rules</a>");
         if (drift.isPresent()) {
             out.append(" <a href=\"#drift\">Drift</a>");
         }
@@ -90,6 +106,8 @@ public final class HtmlReport {
         distributions();
         plan.label().ifPresent(this::labelBalance);
         pointInTime();
+        audit();
+        rules();
         drift.ifPresent(this::drift);
         out.append("</main>\n<footer>\n<p>Written by Quern ").append(esc(facts.toolVersion()))
                 .append(". Every chart is drawn from the values written to matrix.csv.</p>\n");
@@ -122,6 +140,66 @@ public final class HtmlReport {
         plan.timeZone().ifPresent(z -> fact("Time zone", esc(z.toString())));
         fact("Rows", count(run.rows()));
         out.append("</dl>\n</section>\n");
+    }
+
+    /** The audit's verdict, each check's result and evidence, and every finding with its fix. */
+    private void audit() {
+        AuditReport audit = checks.audit();
+        out.append("<section id=\"audit\">\n<h2>Leakage audit</h2>\n<p><strong class=\"")
+                .append(audit.blocked() ? "warn" : "ok").append("\">").append(audit.blocked() ? "Blocked" : "Passed")
+                .append("</strong>: ").append(esc(audit.summary().substring(audit.summary().indexOf(':') + 2)))
+                .append(". <code>audit.md</code> holds the evidence in full.</p>\n")
+                .append("<div class=\"wide\"><table id=\"audit-table\">\n<thead><tr><th>check</th><th>result</th>")
+                .append("<th>evidence</th></tr></thead>\n<tbody>\n");
+        for (CheckResult c : audit.checks()) {
+            String result = audit.result(c.check());
+            boolean open = result.equals(Severity.BLOCKING.label()) || result.equals(Severity.WARNING.label());
+            out.append("<tr><td><code>").append(esc(c.check().id())).append("</code><div class=\"where\">")
+                    .append(esc(c.check().title())).append("</div></td><td").append(open ? " class=\"warn\"" : "")
+                    .append(">").append(esc(result)).append("</td><td>").append(esc(c.evidence()))
+                    .append("</td></tr>\n");
+        }
+        out.append("</tbody>\n</table></div>\n");
+        if (!audit.findings().isEmpty()) {
+            out.append("<ul>\n");
+            for (Finding f : audit.findings()) {
+                out.append("<li").append(f.isOpen() && f.severity() != Severity.NOTE ? " class=\"warn\"" : "")
+                        .append("><code>").append(esc(f.check().id())).append("</code> (")
+                        .append(esc(f.severity().label())).append(f.isOpen() ? "" : ", acknowledged").append(")");
+                if (!f.columns().isEmpty()) {
+                    out.append(" on ").append(esc(String.join(", ", f.columns())));
+                }
+                out.append(": ").append(esc(f.summary()));
+                f.acknowledged().ifPresentOrElse(
+                        a -> out.append(" Acknowledged: ").append(esc(a.reason())),
+                        () -> out.append(" Fix: ").append(esc(f.fix())));
+                out.append("</li>\n");
+            }
+            out.append("</ul>\n");
+        }
+        out.append("</section>\n");
+    }
+
+    /** Each data rule of the recipe: the rows it checked, the rows that failed it and what became of them. */
+    private void rules() {
+        out.append("<section id=\"rules\">\n<h2>Data rules</h2>\n");
+        if (checks.rules().isEmpty()) {
+            out.append("<p>The recipe declares no rules.</p>\n</section>\n");
+            return;
+        }
+        out.append("<div class=\"wide\"><table id=\"rules-table\">\n<thead><tr><th>table</th><th>rule</th>")
+                .append("<th class=\"num\">rows checked</th><th class=\"num\">rows failing</th><th>action</th>")
+                .append("<th>examples</th></tr></thead>\n<tbody>\n");
+        for (RuleOutcome o : checks.rules()) {
+            out.append("<tr><td><code>").append(esc(o.rule().table())).append("</code></td><td>")
+                    .append(esc(o.rule().describe())).append("</td><td class=\"num\">").append(count(o.checked()))
+                    .append("</td><td class=\"num\">").append(count(o.failed())).append("</td><td")
+                    .append(o.failed() > 0 ? " class=\"warn\"" : "").append(">").append(esc(o.action()))
+                    .append("</td><td>").append(esc(String.join(", ", o.examples()))).append("</td></tr>\n");
+        }
+        out.append("</tbody>\n</table></div>\n<p class=\"note\">A check passes only where its condition is true:")
+                .append(" a row where it cannot be decided fails. Excluded rows are left out of every feature,")
+                .append(" lookup, label and the cohort. <code>rules.md</code> has the same table.</p>\n</section>\n");
     }
 
     private void fact(String term, String html) {

@@ -8,9 +8,13 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import java.util.Map;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
+import org.yaml.snakeyaml.LoaderOptions;
+import org.yaml.snakeyaml.Yaml;
+import org.yaml.snakeyaml.constructor.SafeConstructor;
 
 /** report.html as written by the demo build: self-contained, complete, and with drift when asked. */
 class HtmlReportTest {
@@ -89,6 +93,60 @@ class HtmlReportTest {
                 + " moderate\">moderate shift</span></td>"));
         assertEquals(4, count(drifted, "<svg class=\"drift-chart\""), "three distance columns and plan moved");
         assertTrue(DemoBuilds.drifted().drift().isPresent());
+    }
+
+    /** The audit and the rules as audit.json and provenance.json hold them: every check and rule, in order. */
+    @Test
+    @SuppressWarnings("unchecked")
+    void theLeakageAuditAndTheDataRulesAreReportedAsTheirFilesHaveThem() throws IOException {
+        Path build = DemoBuilds.first();
+        String html = report(build);
+        Map<String, Object> audit = json(build.resolve("audit.json"));
+        List<Map<String, Object>> checks = (List<Map<String, Object>>) audit.get("checks");
+        String auditSection = section(html, "audit");
+
+        assertTrue(auditSection.startsWith("<section id=\"audit\">\n<h2>Leakage audit</h2>\n<p><strong class=\"ok\">"
+                + "Passed</strong>: "), auditSection);
+        assertFalse(checks.isEmpty());
+        List<String> rows = all(auditSection, "(<tr><td><code>.*</td></tr>)");
+        assertEquals(checks.size(), rows.size());
+        for (int i = 0; i < checks.size(); i++) {
+            Map<String, Object> c = checks.get(i);
+            String result = (String) c.get("result");
+            assertTrue(rows.get(i).startsWith("<tr><td><code>" + c.get("check") + "</code><div class=\"where\">"
+                    + Html.escape((String) c.get("title")) + "</div></td><td"), rows.get(i));
+            assertTrue(rows.get(i).contains(">" + result + "</td><td>" + Html.escape((String) c.get("evidence"))
+                    + "</td></tr>"), rows.get(i));
+        }
+        List<Map<String, Object>> findings = (List<Map<String, Object>>) audit.get("findings");
+        assertEquals(findings.size(), count(auditSection, "<li"));
+        for (Map<String, Object> f : findings) {
+            assertTrue(auditSection.contains(Html.escape((String) f.get("summary"))), (String) f.get("summary"));
+        }
+
+        List<Map<String, Object>> rules = (List<Map<String, Object>>) json(build.resolve("provenance.json")).get("rules");
+        String rulesSection = section(html, "rules");
+        assertFalse(rules.isEmpty(), "the demo recipe has rules");
+        List<String> ruleRows = all(rulesSection, "(<tr><td><code>.*</td></tr>)");
+        assertEquals(rules.size(), ruleRows.size());
+        for (int i = 0; i < rules.size(); i++) {
+            Map<String, Object> r = rules.get(i);
+            assertTrue(ruleRows.get(i).startsWith("<tr><td><code>" + r.get("table") + "</code></td><td>"
+                    + Html.escape((String) r.get("rule")) + "</td><td class=\"num\">"
+                    + Charts.count(((Number) r.get("rows_checked")).longValue()) + "</td><td class=\"num\">"
+                    + Charts.count(((Number) r.get("rows_failing")).longValue()) + "</td>"), ruleRows.get(i));
+            assertTrue(ruleRows.get(i).contains(">" + r.get("action") + "</td>"), ruleRows.get(i));
+        }
+    }
+
+    private static String section(String html, String id) {
+        String from = html.substring(html.indexOf("<section id=\"" + id + "\">"));
+        return from.substring(0, from.indexOf("</section>") + "</section>".length());
+    }
+
+    @SuppressWarnings("unchecked")
+    private static Map<String, Object> json(Path file) throws IOException {
+        return (Map<String, Object>) new Yaml(new SafeConstructor(new LoaderOptions())).load(Files.readString(file));
     }
 
     @Test
