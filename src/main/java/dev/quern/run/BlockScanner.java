@@ -28,7 +28,9 @@ final class BlockScanner implements AutoCloseable {
     private final int[] aggregateInput;
     /** Each input's source column when it is a number column, else null: its values must then be numbers. */
     private final ColumnRef[] numberInput;
-    private final java.util.Map<LocalDate, int[]> boundaries = new java.util.HashMap<>();
+    private final java.util.Map<LocalDate, Bounds> boundaries = new java.util.HashMap<>();
+    /** Each aggregate's first row at the current cutoff, refilled by every {@link #measure} call. */
+    private final int[] from;
     private static final Object[] NONE = new Object[0];
     /** One per input, for the totals its windows share; the last for the measures that take no input. */
     private final Measures[] measures;
@@ -52,6 +54,7 @@ final class BlockScanner implements AutoCloseable {
         Block block = scan.block();
         this.dayColumn = block.path().time().column().qualified();
         this.aggregates = block.aggregates();
+        this.from = new int[aggregates.size()];
         this.inputs = types.length - (BlockScan.FIRST_INPUT - 1);
         this.values = new Object[inputs][64];
         this.numbers = new double[inputs][];
@@ -82,34 +85,52 @@ final class BlockScanner implements AutoCloseable {
     void measure(Object entity, LocalDate cutoff, Object[] out, int[] offsets) throws SQLException {
         advanceTo(entity);
         boolean has = key != null && KeyOrder.INSTANCE.compare(key, entity) == 0;
-        int[] bounds = boundaries.get(cutoff);
+        Bounds bounds = boundaries.get(cutoff);
         if (bounds == null) {
             bounds = boundaries(cutoff);
             boundaries.put(cutoff, bounds);
         }
-        int to = has ? lowerBound(bounds[aggregates.size()]) : 0;
+        int to = has ? lowerBound(bounds.end()) : 0;
+        // A block's aggregates share a few windows: each distinct start day is looked up once.
+        for (int i = 0; i < from.length; i++) {
+            int same = bounds.sameStartAs()[i];
+            from[i] = !has ? 0 : same < i ? from[same] : lowerBound(bounds.starts()[i]);
+        }
         for (Measures m : measures) {
             m.forget();
         }
         for (int i = 0; i < aggregates.size(); i++) {
             Aggregate a = aggregates.get(i);
-            int from = has ? lowerBound(bounds[i]) : 0;
+            int first = from[i];
             int at = aggregateInput[i];
             out[offsets[i]] = at >= 0
-                    ? measures[at].of(a.kind(), values[at], numbers[at], days, from, Math.max(from, to), cutoff,
+                    ? measures[at].of(a.kind(), values[at], numbers[at], days, first, Math.max(first, to), cutoff,
                             a.column())
-                    : measures[inputs].of(a.kind(), NONE, null, days, from, Math.max(from, to), cutoff, a.column());
+                    : measures[inputs].of(a.kind(), NONE, null, days, first, Math.max(first, to), cutoff, a.column());
         }
     }
 
-    /** Each aggregate's window start at {@code cutoff}, then the end of the cutoff day, as {@link Days} numbers. */
-    private int[] boundaries(LocalDate cutoff) {
-        int[] out = new int[aggregates.size() + 1];
+    /**
+     * The windows at one cutoff, as {@link Days} numbers: each aggregate's start day, the first aggregate
+     * with the same start (itself if none comes before it), and the end of the cutoff day.
+     */
+    private record Bounds(int[] starts, int[] sameStartAs, int end) {
+    }
+
+    private Bounds boundaries(LocalDate cutoff) {
+        int[] starts = new int[aggregates.size()];
+        int[] same = new int[aggregates.size()];
         for (int i = 0; i < aggregates.size(); i++) {
-            out[i] = Days.of(new Boundary.WindowStart(aggregates.get(i).window()).at(cutoff));
+            starts[i] = Days.of(new Boundary.WindowStart(aggregates.get(i).window()).at(cutoff));
+            same[i] = i;
+            for (int j = 0; j < i; j++) {
+                if (starts[j] == starts[i]) {
+                    same[i] = j;
+                    break;
+                }
+            }
         }
-        out[aggregates.size()] = Days.of(new Boundary.CutoffEnd().at(cutoff));
-        return out;
+        return new Bounds(starts, same, Days.of(new Boundary.CutoffEnd().at(cutoff)));
     }
 
     /** A stream the engine ordered otherwise than the merge expects: the range join does not depend on order. */
