@@ -36,7 +36,7 @@ final class Measures {
               String column) {
         return switch (kind) {
             case COUNT -> (long) (to - from);
-            case SUM -> sum(values, from, to, column);
+            case SUM -> sum(values, numbers, from, to, column);
             case MEAN -> mean(total(values, numbers, from, to));
             case MIN -> extreme(values, from, to, -1);
             case MAX -> extreme(values, from, to, 1);
@@ -51,7 +51,7 @@ final class Measures {
      * Whole numbers add exactly, as every engine's sum of integers does; decimals from a DECIMAL column
      * exactly as well; any floating value makes it a compensated floating sum, as SQLite's sum() is.
      */
-    private static Object sum(Object[] values, int from, int to, String column) {
+    private static Object sum(Object[] values, double[] numbers, int from, int to, String column) {
         long whole = 0;
         BigDecimal exact = null;
         CompensatedSum floating = null;
@@ -61,7 +61,7 @@ final class Measures {
                 continue;
             }
             if (floating != null) {
-                floating.add(((Number) v).doubleValue());
+                floating.add(numbers != null ? numbers[i] : ((Number) v).doubleValue());
             } else if (v instanceof Double || v instanceof Float) {
                 floating = new CompensatedSum();
                 floating.add(exact == null ? whole : exact.doubleValue());

@@ -67,6 +67,19 @@ class KeyOrderTest {
         }
     }
 
+    /**
+     * Whole numbers compare exactly, as SQLite compares two integers, even where doubles could not tell them
+     * apart; reals by value, with 0.0 and -0.0 equal (IEEE 754: they compare equal).
+     */
+    @Test
+    void wholeNumbersCompareExactlyAndZerosAreEqual() {
+        assertEquals(1, Integer.signum(KeyOrder.INSTANCE.compare(Long.MAX_VALUE, Long.MAX_VALUE - 1)));
+        assertEquals(-1, Integer.signum(KeyOrder.INSTANCE.compare((1L << 53) + 1, (1L << 53) + 2)));
+        assertEquals(0, KeyOrder.INSTANCE.compare(-0.0, 0.0));
+        assertEquals(-1, Integer.signum(KeyOrder.INSTANCE.compare(1.5, 2.5)));
+        assertEquals(0, KeyOrder.INSTANCE.compare(3L, 3.0));
+    }
+
     /** Whole-valued reals print as whole numbers, so that 3 and 3.0, equal keys, compare as the same text. */
     private static String text(Object v) {
         if (v instanceof Double d && d == Math.rint(d)) {
