@@ -80,10 +80,14 @@ public final class AuditReport {
 
     /** One line: passed or blocked, with the counts. */
     public String summary() {
-        String counts = open(Severity.BLOCKING) + " blocking, " + open(Severity.WARNING) + " warning(s), "
+        return (blocked() ? "blocked: " : "passed: ") + counts();
+    }
+
+    /** The open findings by severity, and how many the recipe acknowledges. */
+    public String counts() {
+        return open(Severity.BLOCKING) + " blocking, " + open(Severity.WARNING) + " warning(s), "
                 + open(Severity.NOTE) + " note(s)" + (acknowledged() == 0 ? ""
                 : "; " + acknowledged() + " finding(s) acknowledged in the recipe");
-        return (blocked() ? "blocked: " : "passed: ") + counts;
     }
 
     /** The open blocking findings as diagnostics, each at the recipe line of the columns involved. */
@@ -186,7 +190,7 @@ public final class AuditReport {
                     + " to read below");
             md.append(".\n\n");
         }
-        md.append("Open: ").append(summary().substring(summary().indexOf(':') + 2)).append(".\n\n");
+        md.append("Open: ").append(counts()).append(".\n\n");
         md.append("| check | result | evidence |\n| --- | --- | --- |\n");
         for (CheckResult c : checks) {
             md.append("| ").append(c.check().id()).append(" | ").append(result(c.check())).append(" | ")

@@ -24,7 +24,8 @@ import java.util.Optional;
  * report.html: one self-contained page about a build, for people to look at and to print. It holds the
  * recipe summary, the data dictionary as a table a search box filters, a chart of every feature and the
  * label (inline SVG), the label balance per cutoff, point-in-time notes, the leakage audit's verdict and
- * the data rules' outcomes, and the drift against an earlier build when one is given. Nothing is fetched: no scripts, styles or fonts from elsewhere.
+ * the data rules' outcomes, and the drift against an earlier build when one is given. Nothing is fetched:
+ * no scripts, styles or fonts from elsewhere.
  *
  * <p>The page is the same byte for byte when the same recipe is built on the same source, except for one
  * line: the build time, in the element with id {@value #BUILT_AT_ID}, on a line of its own.
@@ -147,23 +148,22 @@ public final class HtmlReport {
         AuditReport audit = checks.audit();
         out.append("<section id=\"audit\">\n<h2>Leakage audit</h2>\n<p><strong class=\"")
                 .append(audit.blocked() ? "warn" : "ok").append("\">").append(audit.blocked() ? "Blocked" : "Passed")
-                .append("</strong>: ").append(esc(audit.summary().substring(audit.summary().indexOf(':') + 2)))
+                .append("</strong>: ").append(esc(audit.counts()))
                 .append(". <code>audit.md</code> holds the evidence in full.</p>\n")
                 .append("<div class=\"wide\"><table id=\"audit-table\">\n<thead><tr><th>check</th><th>result</th>")
                 .append("<th>evidence</th></tr></thead>\n<tbody>\n");
         for (CheckResult c : audit.checks()) {
-            String result = audit.result(c.check());
-            boolean open = result.equals(Severity.BLOCKING.label()) || result.equals(Severity.WARNING.label());
+            boolean open = audit.findings(c.check()).stream().anyMatch(HtmlReport::warns);
             out.append("<tr><td><code>").append(esc(c.check().id())).append("</code><div class=\"where\">")
                     .append(esc(c.check().title())).append("</div></td><td").append(open ? " class=\"warn\"" : "")
-                    .append(">").append(esc(result)).append("</td><td>").append(esc(c.evidence()))
+                    .append(">").append(esc(audit.result(c.check()))).append("</td><td>").append(esc(c.evidence()))
                     .append("</td></tr>\n");
         }
         out.append("</tbody>\n</table></div>\n");
         if (!audit.findings().isEmpty()) {
             out.append("<ul>\n");
             for (Finding f : audit.findings()) {
-                out.append("<li").append(f.isOpen() && f.severity() != Severity.NOTE ? " class=\"warn\"" : "")
+                out.append("<li").append(warns(f) ? " class=\"warn\"" : "")
                         .append("><code>").append(esc(f.check().id())).append("</code> (")
                         .append(esc(f.severity().label())).append(f.isOpen() ? "" : ", acknowledged").append(")");
                 if (!f.columns().isEmpty()) {
@@ -178,6 +178,11 @@ public final class HtmlReport {
             out.append("</ul>\n");
         }
         out.append("</section>\n");
+    }
+
+    /** An open finding that blocks or warns: marked on the page. */
+    private static boolean warns(Finding f) {
+        return f.isOpen() && f.severity() != Severity.NOTE;
     }
 
     /** Each data rule of the recipe: the rows it checked, the rows that failed it and what became of them. */
@@ -197,9 +202,8 @@ public final class HtmlReport {
                     .append(o.failed() > 0 ? " class=\"warn\"" : "").append(">").append(esc(o.action()))
                     .append("</td><td>").append(esc(String.join(", ", o.examples()))).append("</td></tr>\n");
         }
-        out.append("</tbody>\n</table></div>\n<p class=\"note\">A check passes only where its condition is true:")
-                .append(" a row where it cannot be decided fails. Excluded rows are left out of every feature,")
-                .append(" lookup, label and the cohort. <code>rules.md</code> has the same table.</p>\n</section>\n");
+        out.append("</tbody>\n</table></div>\n<p class=\"note\">").append(esc(RulesReport.HOW_RULES_APPLY))
+                .append(" <code>rules.md</code> has the same table.</p>\n</section>\n");
     }
 
     private void fact(String term, String html) {

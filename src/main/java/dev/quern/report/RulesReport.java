@@ -33,8 +33,7 @@ public final class RulesReport {
                         .append(o.action()).append(" | ").append(cell(String.join(", ", o.examples())))
                         .append(" |\n");
             }
-            md.append("\nA check passes only where its condition is true: a row where it cannot be decided fails.")
-                    .append(" Excluded rows are left out of every feature, lookup, label and the cohort.\n");
+            md.append('\n').append(HOW_RULES_APPLY).append('\n');
         }
         List<String> emptyTimes = new ArrayList<>();
         for (TimeColumnFacts f : schema.times().values()) {
@@ -54,6 +53,10 @@ public final class RulesReport {
         }
         return md.toString();
     }
+
+    /** How a rule's rows are counted and what excluding them means: under the table in rules.md and report.html. */
+    static final String HOW_RULES_APPLY = "A check passes only where its condition is true: a row where it cannot be"
+            + " decided fails. Excluded rows are left out of every feature, lookup, label and the cohort.";
 
     /** The outcomes as provenance.json holds them. */
     public static List<Object> json(List<RuleOutcome> outcomes) {
