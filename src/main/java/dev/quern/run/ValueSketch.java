@@ -141,12 +141,17 @@ public final class ValueSketch {
 
     /** The counted levels, most frequent first, ties by value (numerically for numbers). */
     public List<Level> levels() {
-        Comparator<Level> byValue = numeric
-                ? Comparator.comparingDouble(l -> Double.parseDouble(l.value()))
-                : Comparator.comparing(Level::value);
+        Comparator<Level> byCount = Comparator.comparingLong(Level::count).reversed();
         List<Level> out = new ArrayList<>();
         levels.forEach((v, n) -> out.add(new Level(v, n[0])));
-        out.sort(Comparator.comparingLong(Level::count).reversed().thenComparing(byValue));
+        if (!numeric) {
+            out.sort(byCount.thenComparing(Level::value));
+            return out;
+        }
+        // Each value is read as a number once, not at every comparison of the sort.
+        Map<String, Double> number = new HashMap<>();
+        out.forEach(l -> number.put(l.value(), Double.parseDouble(l.value())));
+        out.sort(byCount.thenComparingDouble(l -> number.get(l.value())));
         return out;
     }
 
@@ -182,15 +187,25 @@ public final class ValueSketch {
         }
         double[] out = new double[ps.length];
         if (levelsExact()) {
-            List<Level> sorted = new ArrayList<>(levels());
-            sorted.sort(Comparator.comparingDouble(l -> Double.parseDouble(l.value())));
+            // The levels by value: each read as a number once.
+            double[] value = new double[levels.size()];
+            long[] rows = new long[levels.size()];
+            Integer[] order = new Integer[levels.size()];
+            int k = 0;
+            for (Map.Entry<String, long[]> level : levels.entrySet()) {
+                value[k] = Double.parseDouble(level.getKey());
+                rows[k] = level.getValue()[0];
+                order[k] = k;
+                k++;
+            }
+            Arrays.sort(order, Comparator.comparingDouble(j -> value[j]));
             for (int i = 0; i < ps.length; i++) {
                 long rank = rank(ps[i], count);
                 long seen = 0;
-                for (Level l : sorted) {
-                    seen += l.count();
+                for (int j : order) {
+                    seen += rows[j];
                     if (seen >= rank) {
-                        out[i] = Double.parseDouble(l.value());
+                        out[i] = value[j];
                         break;
                     }
                 }
