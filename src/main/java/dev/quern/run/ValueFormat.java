@@ -126,13 +126,8 @@ public final class ValueFormat {
         if (d == 0.0) {
             return "0";
         }
-        // Double.toString is the text BigDecimal.valueOf(d) starts from; without an exponent, the only trailing
-        // zero it can have is that of ".0", so the text needs no BigDecimal, which is most of a matrix's cost.
-        String text = Double.toString(d);
-        if (text.indexOf('E') < 0) {
-            return text.endsWith(".0") ? text.substring(0, text.length() - 2) : text;
-        }
-        return BigDecimal.valueOf(d).stripTrailingZeros().toPlainString();
+        // The digits Java 19 and later print, whatever Java runs Quern: the same matrix on every runtime.
+        return ShortestDecimal.plain(d);
     }
 
     private static String date(Object value) {

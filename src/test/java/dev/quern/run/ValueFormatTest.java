@@ -1,6 +1,7 @@
 package dev.quern.run;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.quern.schema.ValueType;
 import java.math.BigDecimal;
@@ -9,9 +10,16 @@ import org.junit.jupiter.api.Test;
 
 class ValueFormatTest {
 
-    /** The rule the matrix has always followed; the fast path must write exactly the same text. */
+    /**
+     * The text the matrix had before it wrote the shortest decimal itself: Java's own digits, which on Java 17
+     * are now and then a digit longer than needed (JDK-4511638, fixed in Java 19).
+     */
     private static String plain(double d) {
         return d == 0.0 ? "0" : BigDecimal.valueOf(d).stripTrailingZeros().toPlainString();
+    }
+
+    private static int significantDigits(String plain) {
+        return new BigDecimal(plain).stripTrailingZeros().precision();
     }
 
     @Test
@@ -26,8 +34,9 @@ class ValueFormatTest {
     }
 
     @Test
-    void theFastPathWritesWhatBigDecimalWritesOverEveryMagnitude() {
+    void decimalsAreWhatBigDecimalWritesOrShorterOverEveryMagnitude() {
         SplittableRandom random = new SplittableRandom(20261202);
+        int[] shorter = new int[4]; // or closer, by kind of value
         for (int i = 0; i < 200_000; i++) {
             double d = switch (i % 4) {
                 case 0 -> random.nextDouble() * 1000;
@@ -35,10 +44,28 @@ class ValueFormatTest {
                 case 2 -> (random.nextDouble() - 0.5) * Math.pow(10, random.nextInt(-12, 25));
                 default -> Double.longBitsToDouble(random.nextLong());
             };
-            if (Double.isFinite(d)) {
-                assertEquals(plain(d), ValueFormat.format(d, ValueType.DECIMAL), "for " + d);
+            if (!Double.isFinite(d)) {
+                continue;
+            }
+            String java = plain(d);
+            String written = ValueFormat.format(d, ValueType.DECIMAL);
+            if (!java.equals(written) && Runtime.version().feature() < 19) {
+                // One of Java 17's texts that are longer than needed, or as long and farther from the double:
+                // the matrix has the shorter or closer one, which reads back the same.
+                assertEquals(d, Double.parseDouble(written), "for " + d);
+                BigDecimal exact = new BigDecimal(d);
+                int digits = significantDigits(written);
+                assertTrue(digits < significantDigits(java) || digits == significantDigits(java)
+                        && new BigDecimal(written).subtract(exact).abs().compareTo(new BigDecimal(java).subtract(exact).abs()) < 0,
+                        "for " + d + ": " + written);
+                shorter[i % 4]++;
+            } else {
+                assertEquals(java, written, "for " + d);
             }
         }
+        // On Java 17 with this seed: none below a thousand or in cents; about two thousand over wide magnitudes
+        // (17-digit values near 1e16 to 1e25) and a hundred among random bit patterns.
+        assertEquals(0, shorter[0] + shorter[1], "values like a matrix's: " + java.util.Arrays.toString(shorter));
     }
 
     /** Small whole numbers come from a table made once; every whole number still reads as Long.toString writes it. */

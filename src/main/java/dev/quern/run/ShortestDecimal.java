@@ -1,0 +1,194 @@
+package dev.quern.run;
+
+import java.math.BigInteger;
+
+/**
+ * The shortest decimal that reads back as a given double, and of those the closest to it (the even digit on a
+ * tie), written plainly: no exponent, no trailing zeros after the point. Java 19 and later print these digits
+ * in {@code Double.toString}; Java 17's {@code Double.toString} sometimes prints a digit or two more
+ * (JDK-4511638) and spends most of a matrix's formatting time. This is R. Giulietti's Schubfach algorithm
+ * ("The Schubfach way to render doubles", 2020, section 9 and the figures with its Java code), on a table of
+ * 126-bit powers of ten computed once with {@link BigInteger}.
+ */
+final class ShortestDecimal {
+
+    /** Significand bits of a double (the hidden bit not counted), and the smallest exponent of its lowest bit. */
+    private static final int P = 53;
+    private static final int Q_MIN = -1074;
+    private static final long C_MIN = 1L << (P - 1);
+    private static final long T_MASK = C_MIN - 1;
+    /** Subnormal significands below this have too few digits for the algorithm: they are scaled by ten first. */
+    private static final long C_TINY = 3;
+
+    /** The range of k = floor(log10(2^q)) over all doubles, and a table of g = floor(10^-k 2^-r) + 1 per k. */
+    private static final int K_MIN = -324;
+    private static final int K_MAX = 292;
+    private static final long[] G = table();
+
+    private static final long MASK_63 = (1L << 63) - 1;
+
+    private ShortestDecimal() {
+    }
+
+    /** {@code v}, finite and not zero, as its shortest decimal in plain notation. */
+    static String plain(double v) {
+        long bits = Double.doubleToRawLongBits(v);
+        boolean negative = bits < 0;
+        long t = bits & T_MASK;
+        int bq = (int) (bits >>> (P - 1)) & 0x7FF;
+        if (bq == 0x7FF || (bq == 0 && t == 0)) {
+            throw new IllegalArgumentException("not a finite non-zero number: " + v);
+        }
+        if (bq != 0) {
+            int mq = -Q_MIN + 1 - bq;
+            long c = C_MIN | t;
+            // A whole number below 2^53 is its own shortest decimal.
+            if (0 < mq && mq < P) {
+                long f = c >> mq;
+                if (f << mq == c) {
+                    return render(negative, f, 0);
+                }
+            }
+            return toDecimal(negative, -mq, c, 0);
+        }
+        return t < C_TINY ? toDecimal(negative, Q_MIN, 10 * t, -1) : toDecimal(negative, Q_MIN, t, 0);
+    }
+
+    /** The value c 2^q: its rounding interval scaled by 10^-k, and the shortest decimal inside it. */
+    private static String toDecimal(boolean negative, int q, long c, int dk) {
+        int out = (int) c & 1;
+        long cb = c << 2;
+        long cbr = cb + 2;
+        long cbl;
+        int k;
+        // At a power of two the interval below is half as wide as above.
+        if (c != C_MIN || q == Q_MIN) {
+            cbl = cb - 2;
+            k = flog10pow2(q);
+        } else {
+            cbl = cb - 1;
+            k = flog10threeQuartersPow2(q);
+        }
+        int h = q + flog2pow10(-k) + 2;
+        long g1 = G[2 * (k - K_MIN)];
+        long g0 = G[2 * (k - K_MIN) + 1];
+        long vb = rop(g1, g0, cb << h);
+        long vbl = rop(g1, g0, cbl << h);
+        long vbr = rop(g1, g0, cbr << h);
+        long s = vb >> 2;
+        if (s >= 100) {
+            // One digit fewer, when a multiple of ten lies in the interval.
+            long sp10 = 10 * Math.multiplyHigh(s, 115_292_150_460_684_698L << 4);
+            long tp10 = sp10 + 10;
+            boolean upin = vbl + out <= sp10 << 2;
+            boolean wpin = (tp10 << 2) + out <= vbr;
+            if (upin != wpin) {
+                return render(negative, upin ? sp10 : tp10, k);
+            }
+        }
+        long u = s + 1;
+        boolean uin = vbl + out <= s << 2;
+        boolean win = (u << 2) + out <= vbr;
+        if (uin != win) {
+            return render(negative, uin ? s : u, k + dk);
+        }
+        long cmp = vb - (s + u << 1);
+        return render(negative, cmp < 0 || cmp == 0 && (s & 1) == 0 ? s : u, k + dk);
+    }
+
+    /** Rounds (g1 2^63 + g0) cp / 2^127 to odd: the bit that says "inexact" is kept in the lowest place. */
+    private static long rop(long g1, long g0, long cp) {
+        long x1 = Math.multiplyHigh(g0, cp);
+        long y0 = g1 * cp;
+        long y1 = Math.multiplyHigh(g1, cp);
+        long z = (y0 >>> 1) + x1;
+        long vbp = y1 + (z >>> 63);
+        return vbp | (z & MASK_63) + MASK_63 >>> 63;
+    }
+
+    /**
+     * f 10^e in plain notation, without trailing zeros: the characters are placed in one array from the last
+     * digit back, which is half the cost of building the text from a {@code Long.toString}.
+     */
+    private static String render(boolean negative, long f, int e) {
+        while (f % 10 == 0) {
+            f /= 10;
+            e++;
+        }
+        int n = digits(f);
+        int sign = negative ? 1 : 0;
+        // Digits before the point (at least one), the point, and those after it.
+        int whole = e >= 0 ? n + e : Math.max(1, n + e);
+        int fraction = e >= 0 ? 0 : -e;
+        byte[] text = new byte[sign + whole + (fraction > 0 ? 1 + fraction : 0)];
+        java.util.Arrays.fill(text, (byte) '0');
+        if (negative) {
+            text[0] = '-';
+        }
+        int at = text.length - 1 - (e > 0 ? e : 0);
+        for (int i = 0; i < n; i++) {
+            if (fraction > 0 && at == sign + whole) {
+                at--;
+            }
+            text[at--] = (byte) ('0' + f % 10);
+            f /= 10;
+        }
+        if (fraction > 0) {
+            text[sign + whole] = '.';
+        }
+        return new String(text, java.nio.charset.StandardCharsets.ISO_8859_1);
+    }
+
+    /** The number of decimal digits of {@code f}, which is positive. */
+    private static int digits(long f) {
+        int n = 1;
+        for (long bound = 10; n < 19 && f >= bound; bound *= 10) {
+            n++;
+        }
+        return n;
+    }
+
+    /** floor(q log10 2), for |q| up to 5456721. */
+    private static int flog10pow2(int q) {
+        return (int) (q * 661_971_961_083L >> 41);
+    }
+
+    /** floor(log10(3/4 2^q)), for |q| up to 2^16. */
+    private static int flog10threeQuartersPow2(int q) {
+        return (int) (q * 661_971_961_083L + -274_743_187_321L >> 41);
+    }
+
+    /** floor(e log2 10), for |e| up to 1233. */
+    private static int flog2pow10(int e) {
+        return (int) (e * 913_124_641_741L >> 38);
+    }
+
+    /**
+     * For each k, g = floor(10^-k 2^-r) + 1 with r = floor(log2 10^-k) - 125, so that 2^125 < g < 2^126: its
+     * upper 63 bits and its lower 63 bits.
+     */
+    private static long[] table() {
+        long[] g = new long[2 * (K_MAX - K_MIN + 1)];
+        BigInteger mask = BigInteger.ONE.shiftLeft(63).subtract(BigInteger.ONE);
+        for (int k = K_MIN; k <= K_MAX; k++) {
+            int r = flog2pow10(-k) - 125;
+            // 10^-k 2^-r as a fraction num / den of whole numbers.
+            BigInteger num = BigInteger.ONE;
+            BigInteger den = BigInteger.ONE;
+            if (k <= 0) {
+                num = BigInteger.TEN.pow(-k);
+            } else {
+                den = BigInteger.TEN.pow(k);
+            }
+            if (r <= 0) {
+                num = num.shiftLeft(-r);
+            } else {
+                den = den.shiftLeft(r);
+            }
+            BigInteger value = num.divide(den).add(BigInteger.ONE);
+            g[2 * (k - K_MIN)] = value.shiftRight(63).longValueExact();
+            g[2 * (k - K_MIN) + 1] = value.and(mask).longValue();
+        }
+        return g;
+    }
+}
