@@ -35,10 +35,11 @@ final class BlockScanner implements AutoCloseable {
     /** One per input, for the totals its windows share; the last for the measures that take no input. */
     private final Measures[] measures;
 
-    /** The current entity: its key and its rows' days and inputs, in day order. */
+    /** The current entity: its key and its rows' days (also as epoch days) and inputs, in day order. */
     private Object key;
     private int size;
     private int[] days = new int[64];
+    private long[] epochDays = new long[64];
     private Object[][] values;
     /** The inputs of number columns as doubles (0 where the value is null), for the measures that add them. */
     private double[][] numbers;
@@ -104,17 +105,19 @@ final class BlockScanner implements AutoCloseable {
             int first = from[i];
             int at = aggregateInput[i];
             out[offsets[i]] = at >= 0
-                    ? measures[at].of(a.kind(), values[at], numbers[at], days, first, Math.max(first, to), cutoff,
-                            a.column())
-                    : measures[inputs].of(a.kind(), NONE, null, days, first, Math.max(first, to), cutoff, a.column());
+                    ? measures[at].of(a.kind(), values[at], numbers[at], epochDays, first, Math.max(first, to),
+                            bounds.cutoff(), a.column())
+                    : measures[inputs].of(a.kind(), NONE, null, epochDays, first, Math.max(first, to), bounds.cutoff(),
+                            a.column());
         }
     }
 
     /**
      * The windows at one cutoff, as {@link Days} numbers: each aggregate's start day, the first aggregate
-     * with the same start (itself if none comes before it), and the end of the cutoff day.
+     * with the same start (itself if none comes before it), and the end of the cutoff day; and the cutoff's
+     * epoch day, for the days since a row.
      */
-    private record Bounds(int[] starts, int[] sameStartAs, int end) {
+    private record Bounds(int[] starts, int[] sameStartAs, int end, long cutoff) {
     }
 
     private Bounds boundaries(LocalDate cutoff) {
@@ -130,7 +133,7 @@ final class BlockScanner implements AutoCloseable {
                 }
             }
         }
-        return new Bounds(starts, same, Days.of(new Boundary.CutoffEnd().at(cutoff)));
+        return new Bounds(starts, same, Days.of(new Boundary.CutoffEnd().at(cutoff)), cutoff.toEpochDay());
     }
 
     /** A stream the engine ordered otherwise than the merge expects: the range join does not depend on order. */
@@ -182,6 +185,7 @@ final class BlockScanner implements AutoCloseable {
         if (size == days.length) {
             int grown = size * 2;
             days = Arrays.copyOf(days, grown);
+            epochDays = Arrays.copyOf(epochDays, grown);
             for (int i = 0; i < inputs; i++) {
                 values[i] = Arrays.copyOf(values[i], grown);
                 if (numbers[i] != null) {
@@ -190,6 +194,7 @@ final class BlockScanner implements AutoCloseable {
             }
         }
         days[size] = Days.of(ValueFormat.read(rows, 2, types[1]), dayColumn);
+        epochDays[size] = Days.epochDay(days[size]);
         for (int i = 0; i < inputs; i++) {
             Object value = ValueFormat.read(rows, BlockScan.FIRST_INPUT + i, types[BlockScan.FIRST_INPUT - 1 + i]);
             if (value != null && numberInput[i] != null && !(value instanceof Number)) {
@@ -220,6 +225,7 @@ final class BlockScanner implements AutoCloseable {
         }
         Arrays.sort(order, (a, b) -> Integer.compare(days[a], days[b]));
         int[] d = new int[days.length];
+        long[] e = new long[days.length];
         Object[][] v = new Object[inputs][days.length];
         double[][] n = new double[inputs][];
         for (int j = 0; j < inputs; j++) {
@@ -227,6 +233,7 @@ final class BlockScanner implements AutoCloseable {
         }
         for (int i = 0; i < size; i++) {
             d[i] = days[order[i]];
+            e[i] = epochDays[order[i]];
             for (int j = 0; j < inputs; j++) {
                 v[j][i] = values[j][order[i]];
                 if (n[j] != null) {
@@ -235,6 +242,7 @@ final class BlockScanner implements AutoCloseable {
             }
         }
         days = d;
+        epochDays = e;
         values = v;
         numbers = n;
     }

@@ -70,21 +70,25 @@ final class Days {
                 + " store times as ISO text (2024-03-31 08:15:00), or build with --shape range-join");
     }
 
+    /** What {@link #epochDay} gives for a day whose month does not exist. */
+    static final long NO_DAY = Long.MIN_VALUE;
+
     /**
-     * Whole days from {@code day} to {@code cutoff}, counting a day past the month's end on into the next
-     * month as SQLite's julianday() does; empty for a month that does not exist.
+     * The day as {@code LocalDate.toEpochDay} counts, a day past the month's end counting on into the next
+     * month as SQLite's julianday() does; {@link #NO_DAY} for a month that does not exist. The ordered scan
+     * takes it once per row, and the days since it at a cutoff are then one subtraction.
      */
-    static Long between(int day, LocalDate cutoff) {
+    static long epochDay(int day) {
         int month = day / 100 % 100;
         if (month < 1 || month > 12) {
-            return null;
+            return NO_DAY;
         }
-        return cutoff.toEpochDay() - (firstOfMonth(day / 10_000, month) + day % 100 - 1);
+        return firstOfMonth(day / 10_000, month) + day % 100 - 1;
     }
 
     /**
      * The epoch day of the first of {@code month} in {@code year} (0 to 9999), as {@code LocalDate.toEpochDay}
-     * counts it: this runs once per measured day, where building a {@code LocalDate} was a tenth of a scan.
+     * counts it: this runs once per row of a scan, where building a {@code LocalDate} was a tenth of a scan.
      */
     static long firstOfMonth(int year, int month) {
         long days = 365L * year + (year + 3) / 4 - (year + 99) / 100 + (year + 399) / 400 + (367L * month - 362) / 12;

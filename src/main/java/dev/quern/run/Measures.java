@@ -3,7 +3,6 @@ package dev.quern.run;
 import dev.quern.QuernException;
 import dev.quern.recipe.MeasureKind;
 import java.math.BigDecimal;
-import java.time.LocalDate;
 import java.util.HashSet;
 import java.util.Set;
 
@@ -30,9 +29,10 @@ final class Measures {
     /**
      * {@code kind} over rows {@code [from, to)}: {@code values} are the input of each row (null for count
      * and the day measures), {@code numbers} the same values as doubles where they are numbers (null when the
-     * input is not a number column), {@code days} their days as {@link Days} numbers.
+     * input is not a number column), {@code days} their {@link Days#epochDay epoch days}, and {@code cutoff}
+     * the cutoff's.
      */
-    Object of(MeasureKind kind, Object[] values, double[] numbers, int[] days, int from, int to, LocalDate cutoff,
+    Object of(MeasureKind kind, Object[] values, double[] numbers, long[] days, int from, int to, long cutoff,
               String column) {
         return switch (kind) {
             case COUNT -> (long) (to - from);
@@ -42,9 +42,14 @@ final class Measures {
             case MAX -> extreme(values, from, to, 1);
             case DISTINCT -> distinct(values, from, to);
             case STDDEV -> stddev(values, numbers, from, to);
-            case DAYS_SINCE_FIRST -> to > from ? Days.between(days[from], cutoff) : null;
-            case DAYS_SINCE_LAST -> to > from ? Days.between(days[to - 1], cutoff) : null;
+            case DAYS_SINCE_FIRST -> to > from ? since(days[from], cutoff) : null;
+            case DAYS_SINCE_LAST -> to > from ? since(days[to - 1], cutoff) : null;
         };
+    }
+
+    /** Whole days from {@code day} to {@code cutoff}; empty for a day of a month that does not exist. */
+    private static Long since(long day, long cutoff) {
+        return day == Days.NO_DAY ? null : cutoff - day;
     }
 
     /**
