@@ -45,7 +45,8 @@ public final class Main implements Runnable {
         CommandLine cli = new CommandLine(new Main());
         // Picocli reads a command's options from its annotations when it is added, and its classes cannot be
         // kept in the class-data archive: a line that names its command gets that command alone, which takes
-        // about 0.1 s off every run. Any other line (help, a version, a typo to suggest for) gets them all.
+        // a few hundredths of a second off every run. Any other line (help, a version, a typo to suggest for)
+        // gets them all.
         String named = args.length > 0 ? args[0] : "";
         COMMANDS.forEach((name, command) -> {
             if (!COMMANDS.containsKey(named) || named.equals("help") || name.equals(named)) {

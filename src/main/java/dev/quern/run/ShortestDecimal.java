@@ -5,10 +5,12 @@ import java.math.BigInteger;
 /**
  * The shortest decimal that reads back as a given double, and of those the closest to it (the even digit on a
  * tie), written plainly: no exponent, no trailing zeros after the point. Java 19 and later print these digits
- * in {@code Double.toString}; Java 17's {@code Double.toString} sometimes prints a digit or two more
- * (JDK-4511638) and spends most of a matrix's formatting time. This is R. Giulietti's Schubfach algorithm
- * ("The Schubfach way to render doubles", 2020, section 9 and the figures with its Java code), on a table of
- * 126-bit powers of ten computed once with {@link BigInteger}.
+ * in {@code Double.toString}; Java 17's {@code Double.toString} sometimes prints a digit more, or a last
+ * digit farther from the double (JDK-4511638), so a matrix would differ between runtimes; it is also about a
+ * third slower (a microbenchmark of values like a matrix's). This is R. Giulietti's Schubfach algorithm
+ * ("The Schubfach way to render doubles", 2020, section 9 and the figures with its Java code), on 126-bit
+ * powers of ten computed with {@link BigInteger} as each is first needed: a matrix needs a few dozen of the
+ * 617, and computing them all took 30 to 50 ms of every build.
  */
 final class ShortestDecimal {
 
@@ -20,12 +22,20 @@ final class ShortestDecimal {
     /** Subnormal significands below this have too few digits for the algorithm: they are scaled by ten first. */
     private static final long C_TINY = 3;
 
-    /** The range of k = floor(log10(2^q)) over all doubles, and a table of g = floor(10^-k 2^-r) + 1 per k. */
+    /** The range of k = floor(log10(2^q)) over all doubles, and g = floor(10^-k 2^-r) + 1 per k, once known. */
     private static final int K_MIN = -324;
     private static final int K_MAX = 292;
-    private static final long[] G = table();
+    private static final Power[] POWERS = new Power[K_MAX - K_MIN + 1];
 
     private static final long MASK_63 = (1L << 63) - 1;
+    private static final BigInteger LOW_63 = BigInteger.ONE.shiftLeft(63).subtract(BigInteger.ONE);
+
+    /**
+     * g's upper and lower 63 bits. Final fields: a thread that finds another's power in the table sees both.
+     * Two threads may compute the same power; they store equal values.
+     */
+    private record Power(long g1, long g0) {
+    }
 
     private ShortestDecimal() {
     }
@@ -70,8 +80,13 @@ final class ShortestDecimal {
             k = flog10threeQuartersPow2(q);
         }
         int h = q + flog2pow10(-k) + 2;
-        long g1 = G[2 * (k - K_MIN)];
-        long g0 = G[2 * (k - K_MIN) + 1];
+        Power g = POWERS[k - K_MIN];
+        if (g == null) {
+            g = power(k);
+            POWERS[k - K_MIN] = g;
+        }
+        long g1 = g.g1();
+        long g0 = g.g0();
         long vb = rop(g1, g0, cb << h);
         long vbl = rop(g1, g0, cbl << h);
         long vbr = rop(g1, g0, cbr << h);
@@ -108,7 +123,7 @@ final class ShortestDecimal {
 
     /**
      * f 10^e in plain notation, without trailing zeros: the characters are placed in one array from the last
-     * digit back, which is half the cost of building the text from a {@code Long.toString}.
+     * digit back, cheaper than building the text from a {@code Long.toString}.
      */
     private static String render(boolean negative, long f, int e) {
         while (f % 10 == 0) {
@@ -163,32 +178,23 @@ final class ShortestDecimal {
         return (int) (e * 913_124_641_741L >> 38);
     }
 
-    /**
-     * For each k, g = floor(10^-k 2^-r) + 1 with r = floor(log2 10^-k) - 125, so that 2^125 < g < 2^126: its
-     * upper 63 bits and its lower 63 bits.
-     */
-    private static long[] table() {
-        long[] g = new long[2 * (K_MAX - K_MIN + 1)];
-        BigInteger mask = BigInteger.ONE.shiftLeft(63).subtract(BigInteger.ONE);
-        for (int k = K_MIN; k <= K_MAX; k++) {
-            int r = flog2pow10(-k) - 125;
-            // 10^-k 2^-r as a fraction num / den of whole numbers.
-            BigInteger num = BigInteger.ONE;
-            BigInteger den = BigInteger.ONE;
-            if (k <= 0) {
-                num = BigInteger.TEN.pow(-k);
-            } else {
-                den = BigInteger.TEN.pow(k);
-            }
-            if (r <= 0) {
-                num = num.shiftLeft(-r);
-            } else {
-                den = den.shiftLeft(r);
-            }
-            BigInteger value = num.divide(den).add(BigInteger.ONE);
-            g[2 * (k - K_MIN)] = value.shiftRight(63).longValueExact();
-            g[2 * (k - K_MIN) + 1] = value.and(mask).longValue();
+    /** g = floor(10^-k 2^-r) + 1 with r = floor(log2 10^-k) - 125, so that 2^125 < g < 2^126. */
+    private static Power power(int k) {
+        int r = flog2pow10(-k) - 125;
+        // 10^-k 2^-r as a fraction num / den of whole numbers.
+        BigInteger num = BigInteger.ONE;
+        BigInteger den = BigInteger.ONE;
+        if (k <= 0) {
+            num = BigInteger.TEN.pow(-k);
+        } else {
+            den = BigInteger.TEN.pow(k);
         }
-        return g;
+        if (r <= 0) {
+            num = num.shiftLeft(-r);
+        } else {
+            den = den.shiftLeft(r);
+        }
+        BigInteger g = num.divide(den).add(BigInteger.ONE);
+        return new Power(g.shiftRight(63).longValueExact(), g.and(LOW_63).longValue());
     }
 }
