@@ -265,9 +265,6 @@ final class Charts {
 
     /** Coordinates to two decimals, without trailing zeros. */
     static String f(double v) {
-        if (!Double.isFinite(v)) {
-            return Double.toString(v);
-        }
         String s = fixed(v, 2);
         if (s.indexOf('.') >= 0) {
             int end = s.length();

@@ -47,6 +47,11 @@ final class Measures {
         };
     }
 
+    /** Row {@code i}'s input, present and a number, as a double: read once per row where the scan keeps them. */
+    private static double number(Object[] values, double[] numbers, int i) {
+        return numbers != null ? numbers[i] : ((Number) values[i]).doubleValue();
+    }
+
     /** Whole days from {@code day} to {@code cutoff}; empty for a day of a month that does not exist. */
     private static Long since(long day, long cutoff) {
         return day == Days.NO_DAY ? null : cutoff - day;
@@ -66,7 +71,7 @@ final class Measures {
                 continue;
             }
             if (floating != null) {
-                floating.add(numbers != null ? numbers[i] : ((Number) v).doubleValue());
+                floating.add(number(values, numbers, i));
             } else if (v instanceof Double || v instanceof Float) {
                 floating = new CompensatedSum();
                 floating.add(exact == null ? whole : exact.doubleValue());
@@ -106,7 +111,7 @@ final class Measures {
         long n = 0;
         for (int i = from; i < to; i++) {
             if (values[i] != null) {
-                sum.add(numbers != null ? numbers[i] : ((Number) values[i]).doubleValue());
+                sum.add(number(values, numbers, i));
                 n++;
             }
         }
@@ -129,7 +134,7 @@ final class Measures {
         CompensatedSum squares = new CompensatedSum();
         for (int i = from; i < to; i++) {
             if (values[i] != null) {
-                double d = (numbers != null ? numbers[i] : ((Number) values[i]).doubleValue()) - mean;
+                double d = number(values, numbers, i) - mean;
                 squares.add(d * d);
             }
         }
