@@ -5,9 +5,7 @@ import dev.quern.Failure;
 import dev.quern.QuernException;
 import dev.quern.Version;
 import java.io.PrintWriter;
-import java.util.LinkedHashMap;
-import java.util.Map;
-import java.util.function.Supplier;
+import java.util.List;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 
@@ -16,22 +14,10 @@ import picocli.CommandLine.Command;
         description = "Compiles a feature recipe into SQL and builds a point-in-time modelling table.")
 public final class Main implements Runnable {
 
-    /** The commands by name, in the order help lists them. */
-    private static final Map<String, Supplier<Object>> COMMANDS = commands();
-
-    private static Map<String, Supplier<Object>> commands() {
-        Map<String, Supplier<Object>> commands = new LinkedHashMap<>();
-        commands.put("build", BuildCommand::new);
-        commands.put("audit", AuditCommand::new);
-        commands.put("check", CheckCommand::new);
-        commands.put("sql", SqlCommand::new);
-        commands.put("lineage", LineageCommand::new);
-        commands.put("compare", CompareCommand::new);
-        commands.put("sample", SampleCommand::new);
-        commands.put("load", LoadCommand::new);
-        commands.put("help", CommandLine.HelpCommand::new);
-        return commands;
-    }
+    /** The commands, in the order help lists them; each is named by its {@code @Command} annotation. */
+    private static final List<Class<?>> COMMANDS = List.of(BuildCommand.class, AuditCommand.class,
+            CheckCommand.class, SqlCommand.class, LineageCommand.class, CompareCommand.class, SampleCommand.class,
+            LoadCommand.class, CommandLine.HelpCommand.class);
 
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
@@ -48,11 +34,12 @@ public final class Main implements Runnable {
         // a few hundredths of a second off every run. Any other line (help, a version, a typo to suggest for)
         // gets them all.
         String named = args.length > 0 ? args[0] : "";
-        COMMANDS.forEach((name, command) -> {
-            if (!COMMANDS.containsKey(named) || named.equals("help") || name.equals(named)) {
-                cli.addSubcommand(name, command.get());
+        boolean known = COMMANDS.stream().anyMatch(c -> name(c).equals(named));
+        for (Class<?> command : COMMANDS) {
+            if (!known || named.equals("help") || name(command).equals(named)) {
+                cli.addSubcommand(command);
             }
-        });
+        }
         cli.setCaseInsensitiveEnumValuesAllowed(true);
         cli.setOut(out);
         cli.setErr(err);
@@ -65,6 +52,10 @@ public final class Main implements Runnable {
             return Failure.USAGE.exitCode();
         });
         return cli.execute(args);
+    }
+
+    private static String name(Class<?> command) {
+        return command.getAnnotation(Command.class).name();
     }
 
     /** The one place where failures become messages and exit codes. */
