@@ -55,27 +55,19 @@ public final class MatrixWriter {
             try {
                 CsvRecords csv = new CsvRecords(out);
                 csv.write(columns.stream().map(OutputColumn::name).toArray(String[]::new));
-                // With scans, the merge counts the rows; writing them out after it is quick and says nothing.
-                Rows rows = new Rows(columns, csv, query.scanned() ? Progress.SILENT : progress, written);
-                if (query.scanned()) {
-                    new ScannedRows(query).run(connection, progress, () -> firstRow[0] = System.nanoTime(), rows);
-                } else {
-                    try (Statement statement = connection.createStatement()) {
-                        statement.setFetchSize(FETCH_SIZE);
-                        try (ResultSet rs = statement.executeQuery(query.sql())) {
-                            firstRow[0] = System.nanoTime();
-                            int[] types = ValueFormat.readTypes(rs.getMetaData(), query.plan().engine());
-                            while (rs.next()) {
-                                Object[] values = new Object[types.length];
-                                for (int i = 0; i < values.length; i++) {
-                                    values[i] = ValueFormat.read(rs, i + 1, types[i]);
-                                }
-                                rows.accept(values);
-                            }
-                        }
+                Rows rows = new Rows(columns, csv, written);
+                try (WriteBehind behind = new WriteBehind(columns.size(), rows::format, rows::count)) {
+                    if (query.scanned()) {
+                        // The merge counts the rows; writing them out after it is quick and says nothing.
+                        new ScannedRows(query).run(connection, progress, () -> firstRow[0] = System.nanoTime(),
+                                behind);
+                    } else {
+                        read(query, connection, progress, behind, () -> firstRow[0] = System.nanoTime());
                     }
+                    behind.finish();
                 }
-                rows.flush();
+                progress.rows(rows.rows);
+                csv.flush();
                 long ended = System.nanoTime();
                 long queryEnd = firstRow[0] == 0 ? ended : firstRow[0];
                 return rows.result(Duration.ofNanos(queryEnd - started), Duration.ofNanos(ended - queryEnd));
@@ -93,41 +85,67 @@ public final class MatrixWriter {
         }
     }
 
-    /** Each row as it is written: its text, the running statistics and the tallies per cutoff. */
-    private static final class Rows implements Consumer<Object[]> {
+    /** The rows of a query without scanned blocks, as the engine returns them. */
+    private static void read(CompiledQuery query, Connection connection, Progress progress, Consumer<Object[]> sink,
+                             Runnable started) throws SQLException {
+        try (Statement statement = connection.createStatement()) {
+            statement.setFetchSize(FETCH_SIZE);
+            try (ResultSet rs = statement.executeQuery(query.sql())) {
+                started.run();
+                int[] types = ValueFormat.readTypes(rs.getMetaData(), query.plan().engine());
+                Object[] values = new Object[types.length];
+                long rows = 0;
+                while (rs.next()) {
+                    for (int i = 0; i < values.length; i++) {
+                        values[i] = ValueFormat.read(rs, i + 1, types[i]);
+                    }
+                    sink.accept(values);
+                    if (++rows % FETCH_SIZE == 0) {
+                        progress.rows(rows);
+                    }
+                }
+            }
+        }
+    }
+
+    /**
+     * Each row as it is written: its text, the running statistics and the tallies per cutoff. {@link #format}
+     * runs on the thread that reads the rows, {@link #count} on the one that writes them ({@link WriteBehind}).
+     */
+    private static final class Rows {
         private final List<OutputColumn> columns;
         private final CsvRecords csv;
-        private final Progress progress;
         private final Consumer<String[]> written;
         private final List<ColumnStats> stats = new ArrayList<>();
         private final int cutoffIndex;
         private final int labelIndex;
         private final Map<String, Long> perCutoff = new LinkedHashMap<>();
         private final Map<String, ColumnStats> labelPerCutoff = new LinkedHashMap<>();
-        private final String[] record;
         private final ValueType[] types;
         private long rows;
 
-        Rows(List<OutputColumn> columns, CsvRecords csv, Progress progress, Consumer<String[]> written) {
+        Rows(List<OutputColumn> columns, CsvRecords csv, Consumer<String[]> written) {
             this.columns = columns;
             this.csv = csv;
-            this.progress = progress;
             this.written = written;
             columns.forEach(c -> stats.add(new ColumnStats(c.name(), c.type())));
             this.cutoffIndex = indexOf(columns, Role.CUTOFF);
             this.labelIndex = columns.stream().map(OutputColumn::role).toList().indexOf(Role.LABEL);
-            this.record = new String[columns.size()];
             this.types = columns.stream().map(OutputColumn::type).toArray(ValueType[]::new);
         }
 
-        @Override
-        public void accept(Object[] values) {
+        void format(Object[] values, String[] record) {
             for (int i = 0; i < record.length; i++) {
                 try {
                     record[i] = ValueFormat.format(values[i], types[i]);
                 } catch (NumberFormatException e) {
                     throw notANumber(columns.get(i), values[i]);
                 }
+            }
+        }
+
+        void count(Object[] values, String[] record) {
+            for (int i = 0; i < record.length; i++) {
                 stats.get(i).add(values[i], record[i]);
             }
             try {
@@ -143,9 +161,7 @@ public final class MatrixWriter {
                         c -> ColumnStats.summaryOnly(labelColumn.name(), labelColumn.type()))
                         .add(values[labelIndex], record[labelIndex]);
             }
-            if (++rows % FETCH_SIZE == 0) {
-                progress.rows(rows);
-            }
+            rows++;
         }
 
         /** The engine computed text for a number column: SQLite does so from text kept in a number column. */
@@ -154,11 +170,6 @@ public final class MatrixWriter {
                     + ValueFormat.quoted(value) + ", where a number belongs: a column it is computed from holds text"
                     + " in some rows (SQLite keeps whatever is put in a column; 'quern lineage' names the column): "
                     + ValueFormat.TEXT_IN_NUMBERS_CURE);
-        }
-
-        void flush() throws IOException {
-            progress.rows(rows);
-            csv.flush();
         }
 
         RunResult result(Duration query, Duration write) {
