@@ -14,8 +14,8 @@ import java.sql.Connection;
 import java.sql.ResultSet;
 import java.sql.SQLException;
 import java.sql.Statement;
-import java.time.LocalDate;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
@@ -27,6 +27,9 @@ import java.util.function.Consumer;
  * the matrix's order (cutoff, then key) through a {@link CutoffSpill}.
  */
 final class ScannedRows {
+
+    /** Rows of the main query measured together: enough that the threads meet rarely, few enough to stay flat. */
+    private static final int BATCH = 1_000;
 
     private final CompiledQuery query;
     private final Plan plan;
@@ -59,7 +62,7 @@ final class ScannedRows {
         List<Connection> extra = new ArrayList<>();
         List<Statement> statements = new ArrayList<>();
         List<BlockScanner> scanners = new ArrayList<>();
-        List<int[]> offsets = new ArrayList<>();
+        List<ScanWorkers.Block> blocks = new ArrayList<>();
         try (CutoffSpill spill = new CutoffSpill(plan.cutoffs().size(), columns.size())) {
             Statement main = connection.createStatement();
             statements.add(main);
@@ -73,36 +76,56 @@ final class ScannedRows {
                 statements.add(s);
                 s.setFetchSize(MatrixWriter.FETCH_SIZE);
                 ResultSet rs = s.executeQuery(scan.sql());
-                scanners.add(new BlockScanner(scan, rs, ValueFormat.readTypes(rs.getMetaData(), plan.engine())));
-                offsets.add(scan.aggregates().stream().mapToInt(a -> position.get(a.column())).toArray());
+                BlockScanner scanner = new BlockScanner(scan, rs, ValueFormat.readTypes(rs.getMetaData(), plan.engine()));
+                scanners.add(scanner);
+                int[] offsets = scan.aggregates().stream().mapToInt(a -> position.get(a.column())).toArray();
+                blocks.add((key, cutoff, row) -> scanner.measure(key, cutoff, row, offsets));
             }
-            try (ResultSet rs = main.executeQuery(query.sql())) {
+            try (ResultSet rs = main.executeQuery(query.sql());
+                 ScanWorkers workers = new ScanWorkers(blocks, extra.size() == scanners.size())) {
                 int[] types = ValueFormat.readTypes(rs.getMetaData(), plan.engine());
+                // Two batches take turns: the blocks measure one while the next is read and the last spilled.
+                ScanWorkers.Batch reading = new ScanWorkers.Batch(BATCH, columns.size());
+                ScanWorkers.Batch measuring = new ScanWorkers.Batch(BATCH, columns.size());
+                boolean measuringAny = false;
                 long rows = 0;
                 Object previous = null;
-                while (rs.next()) {
-                    Object[] row = new Object[columns.size()];
-                    for (int i = 0; i < fromQuery.length; i++) {
-                        row[fromQuery[i]] = ValueFormat.read(rs, i + 1, types[i]);
+                while (true) {
+                    reading.size = 0;
+                    while (!reading.full() && rs.next()) {
+                        int n = reading.size++;
+                        Object[] row = reading.rows[n];
+                        Arrays.fill(row, null);
+                        for (int i = 0; i < fromQuery.length; i++) {
+                            row[fromQuery[i]] = ValueFormat.read(rs, i + 1, types[i]);
+                        }
+                        if (previous != null && KeyOrder.INSTANCE.compare(previous, row[keyAt]) > 0) {
+                            throw BlockScanner.outOfOrder("the main query", previous, row[keyAt]);
+                        }
+                        previous = row[keyAt];
+                        reading.keys[n] = row[keyAt];
+                        reading.cutoffIndex[n] = cutoffIndex(row[cutoffAt], cutoffIndex);
+                        reading.cutoffs[n] = plan.cutoffs().get(reading.cutoffIndex[n]);
                     }
-                    if (previous != null && KeyOrder.INSTANCE.compare(previous, row[keyAt]) > 0) {
-                        throw BlockScanner.outOfOrder("the main query", previous, row[keyAt]);
+                    if (reading.size > 0) {
+                        workers.start(reading);
                     }
-                    previous = row[keyAt];
-                    String cutoffText = ValueFormat.format(row[cutoffAt], ValueType.DATE);
-                    Integer c = cutoffIndex.get(cutoffText);
-                    if (c == null) {
-                        throw new IllegalStateException("the query returned cutoff " + cutoffText + ", not in the plan");
-                    }
-                    LocalDate cutoff = plan.cutoffs().get(c);
-                    for (int b = 0; b < scanners.size(); b++) {
-                        scanners.get(b).measure(row[keyAt], cutoff, row, offsets.get(b));
-                    }
-                    derive(row, position, cutoffAt);
-                    spill.add(c, row);
-                    if (++rows % MatrixWriter.FETCH_SIZE == 0) {
+                    if (measuringAny) {
+                        workers.await(measuring);
+                        for (int i = 0; i < measuring.size; i++) {
+                            derive(measuring.rows[i], position, cutoffAt);
+                            spill.add(measuring.cutoffIndex[i], measuring.rows[i]);
+                        }
+                        rows += measuring.size;
                         progress.rows(rows);
                     }
+                    if (reading.size == 0) {
+                        break;
+                    }
+                    ScanWorkers.Batch spilled = measuring;
+                    measuring = reading;
+                    reading = spilled;
+                    measuringAny = true;
                 }
             }
             merged.run();
@@ -126,6 +149,16 @@ final class ScannedRows {
             row[position.get(derived.column())] = Evaluator.evaluate(derived.expression(), binding ->
                     binding.handle() == Cutoff.ROW ? row[cutoffAt] : row[position.get((String) binding.handle())]);
         }
+    }
+
+    /** The position of the row's cutoff among the plan's. */
+    private int cutoffIndex(Object cutoff, Map<String, Integer> cutoffIndex) {
+        String text = ValueFormat.format(cutoff, ValueType.DATE);
+        Integer c = cutoffIndex.get(text);
+        if (c == null) {
+            throw new IllegalStateException("the query returned cutoff " + text + ", not in the plan");
+        }
+        return c;
     }
 
     private int indexOf(Role role) {
