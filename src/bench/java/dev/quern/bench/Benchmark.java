@@ -37,7 +37,7 @@ public final class Benchmark {
     private Benchmark(Path project, String classPath, int repeat) {
         this.project = project;
         this.work = project.resolve("target/bench");
-        this.jvm = new ChildJvm(classPath);
+        this.jvm = new ChildJvm(classPath, project);
         this.repeat = repeat;
     }
 

@@ -15,9 +15,22 @@ import java.util.Properties;
 final class ChildJvm {
 
     private final String classPath;
+    private final List<String> launcherOptions;
 
-    ChildJvm(String classPath) {
+    /** Runs classes from {@code classPath} with the options of the {@code quern} launcher of {@code project}. */
+    ChildJvm(String classPath, Path project) {
         this.classPath = classPath;
+        this.launcherOptions = launcherOptions(project.resolve("src/main/launcher/jvm.options"));
+    }
+
+    /** The options the launcher gives java: the file's lines, without comments and blank lines. */
+    static List<String> launcherOptions(Path file) {
+        try {
+            return Files.readAllLines(file).stream().map(String::strip)
+                    .filter(line -> !line.isEmpty() && !line.startsWith("#")).toList();
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
     }
 
     /** What {@link Measured} reported, with the child's exit code; elapsed and heap are NaN when it wrote none. */
@@ -34,9 +47,10 @@ final class ChildJvm {
     /** Runs {@code mainClass} as {@link #run(String, Path, String, List)} does, with more JVM options. */
     Outcome run(String maxHeap, List<String> jvmOptions, Path log, String mainClass, List<String> args) {
         Path report = log.resolveSibling(log.getFileName() + ".measured");
-        // The collector quern's launcher chooses for a batch job, for every program timed against it.
-        List<String> command = new ArrayList<>(List.of(javaBinary(), "-Xmx" + maxHeap, "-XX:+UseParallelGC",
-                "-Dorg.jooq.no-logo=true", "-Dorg.jooq.no-tips=true"));
+        // The collector and compiler settings quern's launcher chooses, for every program timed against it.
+        List<String> command = new ArrayList<>(List.of(javaBinary(), "-Xmx" + maxHeap));
+        command.addAll(launcherOptions);
+        command.addAll(List.of("-Dorg.jooq.no-logo=true", "-Dorg.jooq.no-tips=true"));
         command.addAll(jvmOptions);
         command.addAll(List.of("-cp", classPath, Measured.class.getName(), report.toString(), mainClass));
         command.addAll(args);
