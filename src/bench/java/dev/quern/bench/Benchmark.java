@@ -110,7 +110,7 @@ public final class Benchmark {
         }
         if (!Files.exists(quernClasses)) {
             jvm.require(timed("(recording classes)", jvm.run(Measurement.HEAP_LIMIT_MB + "m",
-                    ChildJvm.classData(quernClasses), runs.resolve("training.log"), "dev.quern.cli.Main",
+                    quernOptions(quernClasses), runs.resolve("training.log"), "dev.quern.cli.Main",
                     withOut(arguments.get(variants.get(0)), runs.resolve("training")))));
         }
         // Rounds of every program in turn, so that a slow spell of the machine falls on all of them alike.
@@ -124,7 +124,7 @@ public final class Benchmark {
                     sql.resolve("handwritten-" + engine.label + ".sql")))));
             for (QuernVariant variant : variants) {
                 querns.computeIfAbsent(variant, v -> new ArrayList<>()).add(timed(variant.name(),
-                        jvm.run(Measurement.HEAP_LIMIT_MB + "m", ChildJvm.classData(quernClasses),
+                        jvm.run(Measurement.HEAP_LIMIT_MB + "m", quernOptions(quernClasses),
                                 runs.resolve(out(runs, variant).getFileName() + ".log"), "dev.quern.cli.Main",
                                 arguments.get(variant))));
             }
@@ -181,6 +181,13 @@ public final class Benchmark {
     private ChildJvm.Outcome sqlToCsv(Path classes, Path runs, String name, String url, Path query) {
         return jvm.run(Measurement.HEAP_LIMIT_MB + "m", ChildJvm.classData(classes), runs.resolve(name + ".log"),
                 SqlToCsv.class.getName(), List.of(url, query.toString(), runs.resolve(name + ".csv").toString()));
+    }
+
+    /** A quern run's JVM options: the launcher's, and its class-data archive. */
+    private List<String> quernOptions(Path archive) {
+        List<String> options = new ArrayList<>(jvm.quernOptions());
+        options.addAll(ChildJvm.classData(archive));
+        return options;
     }
 
     private Path archives() {

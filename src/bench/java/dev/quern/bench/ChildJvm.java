@@ -15,12 +15,17 @@ import java.util.Properties;
 final class ChildJvm {
 
     private final String classPath;
-    private final List<String> launcherOptions;
+    /** The launcher's collector: every program timed gets it. */
+    private final List<String> collector;
+    /** The launcher's other options: only quern gets them (see {@link #quernOptions}). */
+    private final List<String> quernOnly;
 
-    /** Runs classes from {@code classPath} with the options of the {@code quern} launcher of {@code project}. */
+    /** Runs classes from {@code classPath} with the collector of the {@code quern} launcher of {@code project}. */
     ChildJvm(String classPath, Path project) {
         this.classPath = classPath;
-        this.launcherOptions = launcherOptions(project.resolve("src/main/launcher/jvm.options"));
+        List<String> launcher = launcherOptions(project.resolve("src/main/launcher/jvm.options"));
+        this.collector = launcher.stream().filter(ChildJvm::choosesCollector).toList();
+        this.quernOnly = launcher.stream().filter(o -> !choosesCollector(o)).toList();
     }
 
     /** The options the launcher gives java: the file's lines, without comments and blank lines. */
@@ -31,6 +36,18 @@ final class ChildJvm {
         } catch (IOException e) {
             throw new UncheckedIOException(e);
         }
+    }
+
+    private static boolean choosesCollector(String option) {
+        return option.startsWith("-XX:+Use") && option.endsWith("GC");
+    }
+
+    /**
+     * The launcher's options besides the collector, for quern's runs: they tune the compiler for quern's
+     * code and made the hand-written query's runner slower, so it runs without them.
+     */
+    List<String> quernOptions() {
+        return quernOnly;
     }
 
     /** What {@link Measured} reported, with the child's exit code; elapsed and heap are NaN when it wrote none. */
@@ -47,9 +64,9 @@ final class ChildJvm {
     /** Runs {@code mainClass} as {@link #run(String, Path, String, List)} does, with more JVM options. */
     Outcome run(String maxHeap, List<String> jvmOptions, Path log, String mainClass, List<String> args) {
         Path report = log.resolveSibling(log.getFileName() + ".measured");
-        // The collector and compiler settings quern's launcher chooses, for every program timed against it.
+        // The collector quern's launcher chooses for a batch job, for every program timed against it.
         List<String> command = new ArrayList<>(List.of(javaBinary(), "-Xmx" + maxHeap));
-        command.addAll(launcherOptions);
+        command.addAll(collector);
         command.addAll(List.of("-Dorg.jooq.no-logo=true", "-Dorg.jooq.no-tips=true"));
         command.addAll(jvmOptions);
         command.addAll(List.of("-cp", classPath, Measured.class.getName(), report.toString(), mainClass));
