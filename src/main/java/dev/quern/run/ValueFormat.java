@@ -58,13 +58,24 @@ public final class ValueFormat {
         int[] types = new int[meta.getColumnCount()];
         for (int i = 0; i < types.length; i++) {
             types[i] = engine == Engine.SQLITE ? Types.OTHER : meta.getColumnType(i + 1);
+            if (engine == Engine.DUCKDB && types[i] == Types.DATE) {
+                types[i] = LOCAL_DATE;
+            }
         }
         return types;
     }
 
+    /**
+     * A date column whose driver returns a {@code LocalDate} of its own: DuckDB's, which makes it from the
+     * day number it holds. Asked for a {@code LocalDate}, it goes through a {@code java.sql.Date} and the
+     * JVM's calendar instead: a million dates took 86 to 640 ms that way, and 26 ms as they are.
+     */
+    private static final int LOCAL_DATE = Integer.MIN_VALUE;
+
     /** One value of a result, as {@link #readTypes} says to read it. */
     public static Object read(ResultSet rs, int column, int type) throws SQLException {
         return switch (type) {
+            case LOCAL_DATE -> rs.getObject(column);
             case Types.DATE -> rs.getObject(column, LocalDate.class);
             case Types.TIMESTAMP -> rs.getObject(column, LocalDateTime.class);
             default -> rs.getObject(column);

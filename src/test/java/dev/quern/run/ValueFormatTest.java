@@ -3,12 +3,43 @@ package dev.quern.run;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import dev.quern.schema.Engine;
 import dev.quern.schema.ValueType;
 import java.math.BigDecimal;
+import java.sql.Connection;
+import java.sql.DriverManager;
+import java.sql.ResultSet;
+import java.sql.SQLException;
+import java.sql.Statement;
+import java.time.LocalDate;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 
 class ValueFormatTest {
+
+    /**
+     * DuckDB's dates are read as the driver makes them, not through {@code java.sql.Date}: the same days,
+     * before the Gregorian reform and at the ends of the range too, whatever the JVM's time zone.
+     */
+    @Test
+    void duckDbDatesAreTheDaysTheEngineHolds() throws SQLException {
+        try (Connection c = DriverManager.getConnection("jdbc:duckdb:"); Statement s = c.createStatement();
+             ResultSet rs = s.executeQuery("select date '0001-01-01', date '1500-03-01', date '1970-01-01',"
+                     + " date '2024-02-29', date '2024-03-31', date '9999-12-31', cast(null as date)")) {
+            int[] types = ValueFormat.readTypes(rs.getMetaData(), Engine.DUCKDB);
+            assertTrue(rs.next());
+            Object[] expected = {LocalDate.of(1, 1, 1), LocalDate.of(1500, 3, 1), LocalDate.of(1970, 1, 1),
+                LocalDate.of(2024, 2, 29), LocalDate.of(2024, 3, 31), LocalDate.of(9999, 12, 31), null};
+            for (int i = 0; i < expected.length; i++) {
+                Object read = ValueFormat.read(rs, i + 1, types[i]);
+                assertEquals(expected[i], read);
+                if (read != null) {
+                    assertEquals(rs.getObject(i + 1, LocalDate.class), read, "as the driver converts it");
+                    assertEquals(expected[i].toString(), ValueFormat.format(read, ValueType.DATE));
+                }
+            }
+        }
+    }
 
     /**
      * The text the matrix had before it wrote the shortest decimal itself: Java's own digits, which on Java 17
