@@ -122,6 +122,12 @@ public final class MatrixWriter {
         private final Map<String, Long> perCutoff = new LinkedHashMap<>();
         private final Map<String, ColumnStats> labelPerCutoff = new LinkedHashMap<>();
         private final ValueType[] types;
+        /**
+         * Each date column's last value and its text, on the formatting thread: the cutoff is the same in every
+         * row of a run of rows, and a date's text is otherwise written out anew for each.
+         */
+        private final Object[] lastDate;
+        private final String[] lastDateText;
         private long rows;
 
         Rows(List<OutputColumn> columns, CsvRecords csv, Consumer<String[]> written) {
@@ -132,14 +138,24 @@ public final class MatrixWriter {
             this.cutoffIndex = indexOf(columns, Role.CUTOFF);
             this.labelIndex = columns.stream().map(OutputColumn::role).toList().indexOf(Role.LABEL);
             this.types = columns.stream().map(OutputColumn::type).toArray(ValueType[]::new);
+            this.lastDate = new Object[types.length];
+            this.lastDateText = new String[types.length];
         }
 
         void format(Object[] values, String[] record) {
             for (int i = 0; i < record.length; i++) {
+                if (types[i] == ValueType.DATE && values[i] != null && values[i].equals(lastDate[i])) {
+                    record[i] = lastDateText[i];
+                    continue;
+                }
                 try {
                     record[i] = ValueFormat.format(values[i], types[i]);
                 } catch (NumberFormatException e) {
                     throw notANumber(columns.get(i), values[i]);
+                }
+                if (types[i] == ValueType.DATE) {
+                    lastDate[i] = values[i];
+                    lastDateText[i] = record[i];
                 }
             }
         }

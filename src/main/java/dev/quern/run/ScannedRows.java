@@ -59,6 +59,7 @@ final class ScannedRows {
         for (int i = 0; i < plan.cutoffs().size(); i++) {
             cutoffIndex.put(plan.cutoffs().get(i).toString(), i);
         }
+        Map<Object, Integer> cutoffOf = new HashMap<>();
         List<Connection> extra = new ArrayList<>();
         List<Statement> statements = new ArrayList<>();
         List<BlockScanner> scanners = new ArrayList<>();
@@ -104,7 +105,7 @@ final class ScannedRows {
                         }
                         previous = row[keyAt];
                         reading.keys[n] = row[keyAt];
-                        reading.cutoffIndex[n] = cutoffIndex(row[cutoffAt], cutoffIndex);
+                        reading.cutoffIndex[n] = cutoffIndex(row[cutoffAt], cutoffIndex, cutoffOf);
                         reading.cutoffs[n] = plan.cutoffs().get(reading.cutoffIndex[n]);
                     }
                     if (reading.size > 0) {
@@ -151,13 +152,21 @@ final class ScannedRows {
         }
     }
 
-    /** The position of the row's cutoff among the plan's. */
-    private int cutoffIndex(Object cutoff, Map<String, Integer> cutoffIndex) {
+    /**
+     * The position of the row's cutoff among the plan's, found by its text once per value the engine returns
+     * (the plan's few cutoffs), not once per row.
+     */
+    private int cutoffIndex(Object cutoff, Map<String, Integer> byText, Map<Object, Integer> byValue) {
+        Integer known = byValue.get(cutoff);
+        if (known != null) {
+            return known;
+        }
         String text = ValueFormat.format(cutoff, ValueType.DATE);
-        Integer c = cutoffIndex.get(text);
+        Integer c = byText.get(text);
         if (c == null) {
             throw new IllegalStateException("the query returned cutoff " + text + ", not in the plan");
         }
+        byValue.put(cutoff, c);
         return c;
     }
 
