@@ -136,6 +136,10 @@ final class EntitySince {
         if (value == null) {
             return Optional.empty();
         }
+        if (value instanceof LocalDate date) {
+            // What the text of any other value is parsed into; writing it out to parse it back was most of a read.
+            return Optional.of(date);
+        }
         String text = ValueFormat.format(value, ValueType.DATE);
         try {
             return Optional.of(LocalDate.parse(text.substring(0, Math.min(10, text.length()))));
