@@ -81,14 +81,7 @@ public final class ReadAside<T> {
             Thread.currentThread().interrupt();
             throw new IllegalStateException("interrupted while waiting for a read of the source", e);
         } catch (ExecutionException e) {
-            Throwable cause = e.getCause();
-            if (cause instanceof RuntimeException r) {
-                throw r;
-            }
-            if (cause instanceof Error error) {
-                throw error;
-            }
-            throw new IllegalStateException("a read of the source failed", cause);
+            throw ThrownElsewhere.rethrow(e.getCause(), "a read of the source");
         }
     }
 

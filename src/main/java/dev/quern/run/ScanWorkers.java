@@ -97,17 +97,10 @@ final class ScanWorkers implements AutoCloseable {
                 Thread.currentThread().interrupt();
                 throw new IllegalStateException("interrupted while measuring the scanned blocks", e);
             } catch (ExecutionException e) {
-                Throwable cause = e.getCause();
-                if (cause instanceof SQLException s) {
+                if (e.getCause() instanceof SQLException s) {
                     throw s;
                 }
-                if (cause instanceof RuntimeException r) {
-                    throw r;
-                }
-                if (cause instanceof Error error) {
-                    throw error;
-                }
-                throw new IllegalStateException("measuring a scanned block failed", cause);
+                throw ThrownElsewhere.rethrow(e.getCause(), "measuring a scanned block");
             }
         }
         batch.measured.clear();

@@ -157,16 +157,8 @@ final class WriteBehind implements Consumer<Object[]>, AutoCloseable {
     }
 
     private void rethrow() {
-        Throwable t = failure;
-        if (t == null) {
-            return;
+        if (failure != null) {
+            throw ThrownElsewhere.rethrow(failure, "writing the matrix");
         }
-        if (t instanceof RuntimeException r) {
-            throw r;
-        }
-        if (t instanceof Error e) {
-            throw e;
-        }
-        throw new IllegalStateException("writing the matrix failed", t);
     }
 }
