@@ -1,7 +1,6 @@
 package dev.quern.run;
 
 import java.sql.SQLException;
-import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.ExecutionException;
@@ -22,19 +21,15 @@ import java.util.concurrent.TimeUnit;
  */
 final class ScanWorkers implements AutoCloseable {
 
-    /** The rows of the main query that go to the blocks together. */
+    /** The rows of the main query that go to the blocks together, each with its cutoff's place in the plan. */
     static final class Batch {
         final Object[][] rows;
-        final Object[] keys;
-        final LocalDate[] cutoffs;
         final int[] cutoffIndex;
         int size;
         private final List<Future<Void>> measured = new ArrayList<>();
 
         Batch(int capacity, int width) {
             rows = new Object[capacity][width];
-            keys = new Object[capacity];
-            cutoffs = new LocalDate[capacity];
             cutoffIndex = new int[capacity];
         }
 
@@ -43,9 +38,9 @@ final class ScanWorkers implements AutoCloseable {
         }
     }
 
-    /** One block's measures of one row: they go into the row's cells of the block. */
+    /** One block's measures of one row at its cutoff (the plan's {@code cutoff}th): into the block's cells. */
     interface Block {
-        void measure(Object key, LocalDate cutoff, Object[] row) throws SQLException;
+        void measure(Object[] row, int cutoff) throws SQLException;
     }
 
     private final List<Block> blocks;
@@ -84,7 +79,7 @@ final class ScanWorkers implements AutoCloseable {
 
     private static void measure(Block block, Batch batch) throws SQLException {
         for (int i = 0; i < batch.size; i++) {
-            block.measure(batch.keys[i], batch.cutoffs[i], batch.rows[i]);
+            block.measure(batch.rows[i], batch.cutoffIndex[i]);
         }
     }
 

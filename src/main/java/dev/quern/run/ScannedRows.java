@@ -80,7 +80,7 @@ final class ScannedRows {
                 BlockScanner scanner = new BlockScanner(scan, rs, ValueFormat.readTypes(rs.getMetaData(), plan.engine()));
                 scanners.add(scanner);
                 int[] offsets = scan.aggregates().stream().mapToInt(a -> position.get(a.column())).toArray();
-                blocks.add((key, cutoff, row) -> scanner.measure(key, cutoff, row, offsets));
+                blocks.add((row, cutoff) -> scanner.measure(row[keyAt], plan.cutoffs().get(cutoff), row, offsets));
             }
             try (ResultSet rs = main.executeQuery(query.sql());
                  ScanWorkers workers = new ScanWorkers(blocks, extra.size() == scanners.size())) {
@@ -104,9 +104,7 @@ final class ScannedRows {
                             throw BlockScanner.outOfOrder("the main query", previous, row[keyAt]);
                         }
                         previous = row[keyAt];
-                        reading.keys[n] = row[keyAt];
                         reading.cutoffIndex[n] = cutoffIndex(row[cutoffAt], cutoffIndex, cutoffOf);
-                        reading.cutoffs[n] = plan.cutoffs().get(reading.cutoffIndex[n]);
                     }
                     if (reading.size > 0) {
                         workers.start(reading);

@@ -6,7 +6,6 @@ import static org.junit.jupiter.api.Assertions.assertSame;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 
 import java.sql.SQLException;
-import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.List;
@@ -17,8 +16,6 @@ import org.junit.jupiter.api.Test;
 /** The blocks' measures of a batch: each block sees every row in order, writes its own cells, and fails loudly. */
 class ScanWorkersTest {
 
-    private static final LocalDate CUTOFF = LocalDate.of(2025, 1, 31);
-
     @Test
     void eachBlockMeasuresEveryRowInOrderOnAThreadOfItsOwn() throws SQLException {
         List<List<Object>> seen = List.of(Collections.synchronizedList(new ArrayList<>()),
@@ -27,10 +24,10 @@ class ScanWorkersTest {
         List<ScanWorkers.Block> blocks = new ArrayList<>();
         for (int b = 0; b < 2; b++) {
             int block = b;
-            blocks.add((key, cutoff, row) -> {
-                seen.get(block).add(key);
+            blocks.add((row, cutoff) -> {
+                seen.get(block).add(row[0]);
                 threads.add(Thread.currentThread());
-                row[1 + block] = "block " + block + " of " + key;
+                row[1 + block] = "block " + block + " of " + row[0] + " at cutoff " + cutoff;
             });
         }
         try (ScanWorkers workers = new ScanWorkers(blocks, true)) {
@@ -42,8 +39,9 @@ class ScanWorkersTest {
             workers.await(second);
             for (ScanWorkers.Batch batch : List.of(first, second)) {
                 for (int i = 0; i < batch.size; i++) {
-                    assertEquals("block 0 of " + batch.keys[i], batch.rows[i][1]);
-                    assertEquals("block 1 of " + batch.keys[i], batch.rows[i][2]);
+                    String at = " at cutoff " + batch.cutoffIndex[i];
+                    assertEquals("block 0 of " + batch.rows[i][0] + at, batch.rows[i][1]);
+                    assertEquals("block 1 of " + batch.rows[i][0] + at, batch.rows[i][2]);
                 }
             }
         }
@@ -56,9 +54,9 @@ class ScanWorkersTest {
     @Test
     void withoutThreadsTheCallerMeasuresAtStart() throws SQLException {
         List<Thread> threads = new ArrayList<>();
-        try (ScanWorkers workers = new ScanWorkers(List.of((key, cutoff, row) -> {
+        try (ScanWorkers workers = new ScanWorkers(List.of((row, cutoff) -> {
             threads.add(Thread.currentThread());
-            row[1] = key;
+            row[1] = row[0];
         }), false)) {
             ScanWorkers.Batch batch = batch(0, 2);
             workers.start(batch);
@@ -72,14 +70,14 @@ class ScanWorkersTest {
     void aBlocksFailureIsThrownByAwaitAsItWasThrown() throws SQLException {
         SQLException lost = new SQLException("connection lost");
         IllegalStateException bad = new IllegalStateException("out of order");
-        try (ScanWorkers workers = new ScanWorkers(List.of((key, cutoff, row) -> {
+        try (ScanWorkers workers = new ScanWorkers(List.of((row, cutoff) -> {
             throw lost;
         }), true)) {
             ScanWorkers.Batch batch = batch(0, 1);
             workers.start(batch);
             assertSame(lost, assertThrows(SQLException.class, () -> workers.await(batch)));
         }
-        try (ScanWorkers workers = new ScanWorkers(List.of((key, cutoff, row) -> {
+        try (ScanWorkers workers = new ScanWorkers(List.of((row, cutoff) -> {
             throw bad;
         }), true)) {
             ScanWorkers.Batch batch = batch(0, 1);
@@ -91,9 +89,8 @@ class ScanWorkersTest {
     private static ScanWorkers.Batch batch(long firstKey, int size) {
         ScanWorkers.Batch batch = new ScanWorkers.Batch(10, 3);
         for (int i = 0; i < size; i++) {
-            batch.keys[i] = firstKey + i;
-            batch.cutoffs[i] = CUTOFF;
             batch.rows[i][0] = firstKey + i;
+            batch.cutoffIndex[i] = i % 3;
         }
         batch.size = size;
         return batch;
