@@ -48,30 +48,36 @@ public final class ValueSketch {
     private long count;
     private double[] sample = new double[0];
     private int sampled;
-    private final SplittableRandom random = new SplittableRandom(SEED);
+    private final SplittableRandom random;
 
-    private ValueSketch(boolean numeric, int levelLimit, int capacity) {
+    private ValueSketch(boolean numeric, int levelLimit, int capacity, long seed) {
         if (levelLimit < 1 || capacity < 1) {
             throw new IllegalArgumentException("a sketch needs room for at least one value");
         }
         this.numeric = numeric;
         this.levelLimit = levelLimit;
         this.capacity = capacity;
+        this.random = new SplittableRandom(seed);
     }
 
     /** A sketch of numbers: level counts and a sample. */
     public static ValueSketch numbers() {
-        return new ValueSketch(true, NUMBER_LEVELS, SAMPLE_SIZE);
+        return new ValueSketch(true, NUMBER_LEVELS, SAMPLE_SIZE, SEED);
     }
 
     /** A sketch of text (and of dates, which are compared as text): level counts only. */
     public static ValueSketch text() {
-        return new ValueSketch(false, TEXT_LEVELS, 1);
+        return new ValueSketch(false, TEXT_LEVELS, 1, SEED);
     }
 
     /** A numeric sketch with other limits, for tests. */
     static ValueSketch numbers(int levelLimit, int capacity) {
-        return new ValueSketch(true, levelLimit, capacity);
+        return new ValueSketch(true, levelLimit, capacity, SEED);
+    }
+
+    /** A numeric sketch with its own seed, for tests of the sample's fairness. */
+    static ValueSketch numbers(int levelLimit, int capacity, long seed) {
+        return new ValueSketch(true, levelLimit, capacity, seed);
     }
 
     public boolean numeric() {

@@ -73,6 +73,36 @@ class ValueSketchTest {
     }
 
     @Test
+    void everyValueIsEquallyLikelyToBeInTheSample() {
+        // 4,000 sketches of 8 from the values 0..39, each with its own seed: each value should be kept by
+        // about 4,000 x 8 / 40 = 800 of them.
+        int values = 40;
+        int capacity = 8;
+        int sketches = 4_000;
+        long[] kept = new long[values];
+        for (int seed = 1; seed <= sketches; seed++) {
+            ValueSketch s = ValueSketch.numbers(1, capacity, seed);
+            for (int v = 0; v < values; v++) {
+                s.add(Integer.toString(v), v);
+            }
+            for (double v : s.sample()) {
+                kept[(int) v]++;
+            }
+        }
+        double expected = (double) sketches * capacity / values;
+        double chiSquare = 0;
+        for (long k : kept) {
+            chiSquare += (k - expected) * (k - expected) / expected;
+        }
+        // Pearson's statistic with 39 degrees of freedom exceeds 72.1 with probability 0.001 (the chi-square
+        // table of NIST/SEMATECH e-Handbook of Statistical Methods, section 1.3.6.7.4). Each value is kept
+        // by a sketch at most once, so the counts are less spread than multinomial ones: a fair sample stays
+        // well below. A sampler that favoured the first or the last values would not.
+        assertTrue(chiSquare < 72.1, "chi-square " + chiSquare + " of " + java.util.Arrays.toString(kept));
+        assertEquals(sketches * capacity, java.util.Arrays.stream(kept).sum());
+    }
+
+    @Test
     void levelsBeyondTheLimitAreCountedTogether() {
         ValueSketch s = ValueSketch.text();
         for (int i = 0; i < ValueSketch.TEXT_LEVELS + 5; i++) {
