@@ -123,7 +123,7 @@ final class ShortestDecimal {
 
     /**
      * f 10^e in plain notation, without trailing zeros: the characters are placed in one array from the last
-     * digit back, cheaper than building the text from a {@code Long.toString}.
+     * digit back, two digits at a time, cheaper than building the text from a {@code Long.toString}.
      */
     private static String render(boolean negative, long f, int e) {
         while (f % 10 == 0) {
@@ -132,35 +132,72 @@ final class ShortestDecimal {
         }
         int n = digits(f);
         int sign = negative ? 1 : 0;
-        // Digits before the point (at least one), the point, and those after it.
-        int whole = e >= 0 ? n + e : Math.max(1, n + e);
-        int fraction = e >= 0 ? 0 : -e;
-        byte[] text = new byte[sign + whole + (fraction > 0 ? 1 + fraction : 0)];
-        java.util.Arrays.fill(text, (byte) '0');
+        byte[] text;
+        if (e >= 0) {
+            // A whole number: the digits, then e zeros.
+            text = new byte[sign + n + e];
+            java.util.Arrays.fill(text, sign + n, text.length, (byte) '0');
+            digits(text, sign + n, f, n);
+        } else if (n > -e) {
+            // The point among the digits: the -e after it, the point, those before it.
+            int fraction = -e;
+            text = new byte[sign + n + 1];
+            long whole = digits(text, text.length, f, fraction);
+            text[sign + n - fraction] = '.';
+            digits(text, sign + n - fraction, whole, n - fraction);
+        } else {
+            // Below one: "0.", the zeros that lead the fraction, then the digits.
+            text = new byte[sign + 2 - e];
+            java.util.Arrays.fill(text, sign, text.length - n, (byte) '0');
+            text[sign + 1] = '.';
+            digits(text, text.length, f, n);
+        }
         if (negative) {
             text[0] = '-';
-        }
-        int at = text.length - 1 - (e > 0 ? e : 0);
-        for (int i = 0; i < n; i++) {
-            if (fraction > 0 && at == sign + whole) {
-                at--;
-            }
-            text[at--] = (byte) ('0' + f % 10);
-            f /= 10;
-        }
-        if (fraction > 0) {
-            text[sign + whole] = '.';
         }
         return new String(text, java.nio.charset.StandardCharsets.ISO_8859_1);
     }
 
+    /**
+     * Writes the last {@code count} digits of {@code v}, zeros first where it has fewer, to end just before
+     * {@code end}; returns the digits before them, {@code v / 10^count}.
+     */
+    private static long digits(byte[] text, int end, long v, int count) {
+        int at = end;
+        for (; count >= 2; count -= 2) {
+            int pair = (int) (v % 100);
+            v /= 100;
+            text[--at] = PAIRS[2 * pair + 1];
+            text[--at] = PAIRS[2 * pair];
+        }
+        if (count == 1) {
+            text[--at] = (byte) ('0' + v % 10);
+            v /= 10;
+        }
+        return v;
+    }
+
+    /** "00" to "99", each pair of characters at twice its value. */
+    private static final byte[] PAIRS = new byte[200];
+    /** 10^0 to 10^18: every power of ten a long holds. */
+    private static final long[] POWERS_OF_TEN = new long[19];
+
+    static {
+        for (int i = 0; i < 100; i++) {
+            PAIRS[2 * i] = (byte) ('0' + i / 10);
+            PAIRS[2 * i + 1] = (byte) ('0' + i % 10);
+        }
+        POWERS_OF_TEN[0] = 1;
+        for (int i = 1; i < POWERS_OF_TEN.length; i++) {
+            POWERS_OF_TEN[i] = POWERS_OF_TEN[i - 1] * 10;
+        }
+    }
+
     /** The number of decimal digits of {@code f}, which is positive. */
     private static int digits(long f) {
-        int n = 1;
-        for (long bound = 10; n < 19 && f >= bound; bound *= 10) {
-            n++;
-        }
-        return n;
+        // log10(2) is about 1233 / 4096: the bit length gives the count or one more than it.
+        int n = (64 - Long.numberOfLeadingZeros(f)) * 1233 >>> 12;
+        return n < POWERS_OF_TEN.length && f >= POWERS_OF_TEN[n] ? n + 1 : Math.max(n, 1);
     }
 
     /** floor(q log10 2), for |q| up to 5456721. */
