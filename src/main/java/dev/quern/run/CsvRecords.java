@@ -38,12 +38,21 @@ final class CsvRecords {
 
     /** Writes one record and its '\n' separator; a null is left to commons-csv, which never quotes it. */
     void write(String... values) throws IOException {
+        write(values, null);
+    }
+
+    /**
+     * Writes one record as {@link #write(String...)} does, where {@code numbers}, when given, marks the values
+     * known to be a number's text: digits, a sign and a point, or NaN and Infinity, never empty. Those are
+     * plain without a look at their characters.
+     */
+    void write(String[] values, boolean[] numbers) throws IOException {
         for (int i = 0; i < values.length; i++) {
             String value = values[i];
             boolean first = i == 0;
             if (value != null && value.isEmpty() && !first) {
                 buffer.append(',');
-            } else if (plain(value)) {
+            } else if (numbers != null && numbers[i] || plain(value)) {
                 if (!first) {
                     buffer.append(',');
                 }

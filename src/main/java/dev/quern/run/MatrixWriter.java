@@ -128,6 +128,9 @@ public final class MatrixWriter {
          */
         private final Object[] lastDate;
         private final String[] lastDateText;
+        /** The number columns, and which cells of the record being written hold a number's text. */
+        private final boolean[] numeric;
+        private final boolean[] numberText;
         private long rows;
 
         Rows(List<OutputColumn> columns, CsvRecords csv, Consumer<String[]> written) {
@@ -140,6 +143,11 @@ public final class MatrixWriter {
             this.types = columns.stream().map(OutputColumn::type).toArray(ValueType[]::new);
             this.lastDate = new Object[types.length];
             this.lastDateText = new String[types.length];
+            this.numeric = new boolean[types.length];
+            for (int i = 0; i < types.length; i++) {
+                numeric[i] = types[i].isNumber();
+            }
+            this.numberText = new boolean[types.length];
         }
 
         void format(Object[] values, String[] record) {
@@ -163,9 +171,11 @@ public final class MatrixWriter {
         void count(Object[] values, String[] record) {
             for (int i = 0; i < record.length; i++) {
                 stats.get(i).add(values[i], record[i]);
+                // ValueFormat writes any Number in a number column as digits, a sign, a point, NaN or Infinity.
+                numberText[i] = numeric[i] && values[i] instanceof Number;
             }
             try {
-                csv.write(record);
+                csv.write(record, numberText);
             } catch (IOException e) {
                 throw new UncheckedIOException(e);
             }

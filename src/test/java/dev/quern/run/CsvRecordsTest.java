@@ -76,6 +76,32 @@ class CsvRecordsTest {
         assertFalse(CsvRecords.plain("é"), "outside the plain set, left to commons-csv");
     }
 
+    @Test
+    void everyNumberInANumberColumnIsWrittenAsPlainText() {
+        // The writer takes the text of a Number in a number column as plain without looking at it.
+        List<Number> numbers = List.of(0L, -0.0, 0.0, 7, (short) -3, (byte) 9, Long.MIN_VALUE, Long.MAX_VALUE,
+                Double.NaN, Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY, Double.MIN_VALUE, -Double.MAX_VALUE,
+                1e-300, 123456789.125, 0.1f, new java.math.BigDecimal("-1234567890123456789012.50"),
+                new java.math.BigInteger("99999999999999999999999"), 1e22, -2.5e-7);
+        for (Number n : numbers) {
+            for (dev.quern.schema.ValueType type : List.of(dev.quern.schema.ValueType.INTEGER,
+                    dev.quern.schema.ValueType.DECIMAL)) {
+                String text = ValueFormat.format(n, type);
+                assertTrue(CsvRecords.plain(text), type + " " + n + " is written as '" + text + "'");
+            }
+        }
+    }
+
+    @Test
+    void numbersMarkedAsSuchAreWrittenAsTheyAre() throws IOException {
+        StringWriter out = new StringWriter();
+        CsvRecords csv = new CsvRecords(out);
+        csv.write(new String[] {"12.5", "", "a b", "-3"}, new boolean[] {true, false, false, true});
+        csv.flush();
+
+        assertEquals("12.5,,a b,-3\n", out.toString());
+    }
+
     private static void assertSameAsCsvPrinter(List<String[]> records) throws IOException {
         StringWriter expected = new StringWriter();
         try (CSVPrinter printer = new CSVPrinter(expected, MatrixWriter.FORMAT)) {
