@@ -40,7 +40,7 @@ import dev.quern.sql.CompiledQuery;
 import dev.quern.sql.SqlCompiler;
 import java.io.IOException;
 import java.io.InputStream;
-import java.io.Writer;
+import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -237,7 +237,7 @@ public final class Quern {
                 timings.put("audit_source", Duration.ofNanos(sourceAuditNanos[0]));
             };
             if (encoding.isEmpty() && frozen.isEmpty()) {
-                try (Writer matrix = out.open(MATRIX)) {
+                try (OutputStream matrix = out.openBytes(MATRIX)) {
                     run = MatrixWriter.write(rows, connection, matrix, progress, watch);
                 }
                 audit.accept(out.pending(MATRIX));
@@ -321,7 +321,7 @@ public final class Quern {
             temp = Files.createTempFile("quern-audit-", ".csv");
             Audit.SourceEvidence evidence = leakage.readSource(connection);
             Audit.Watch watch = leakage.watch(() -> evidence);
-            try (Writer matrix = Files.newBufferedWriter(temp, StandardCharsets.UTF_8)) {
+            try (OutputStream matrix = Files.newOutputStream(temp)) {
                 MatrixWriter.write(compilation.query(), connection, matrix, progress, watch);
             }
             progress.stage("auditing for leakage");

@@ -13,8 +13,8 @@ import dev.quern.run.OutputFolder;
 import dev.quern.run.Progress;
 import dev.quern.run.RunResult;
 import java.io.IOException;
+import java.io.OutputStream;
 import java.io.Writer;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Duration;
@@ -102,19 +102,19 @@ public final class Encoder {
     }
 
     /**
-     * Runs the stage into {@code out}: {@code rawMatrix} writes the raw matrix to the writer it is given (a
+     * Runs the stage into {@code out}: {@code rawMatrix} writes the raw matrix to the stream it is given (a
      * scratch file in the output folder, removed afterwards) and {@code rawWritten} reads it (the leakage
      * audit screens the raw columns); then the encodings are fitted on it, unless
      * {@code frozen} holds a fit to reuse, and {@link Quern#MATRIX} and {@link #FITTED} are written.
      */
     public static Encoded build(EncodePlan plan, Optional<Fitted> frozen, String recipeSha256, OutputFolder out,
-                                Function<Writer, RunResult> rawMatrix, java.util.function.Consumer<Path> rawWritten,
+                                Function<OutputStream, RunResult> rawMatrix, java.util.function.Consumer<Path> rawWritten,
                                 Progress progress) {
         Path scratch = null;
         try {
             scratch = Files.createTempFile(out.folder(), ".matrix.raw.", ".tmp");
             RunResult raw;
-            try (Writer w = Files.newBufferedWriter(scratch, StandardCharsets.UTF_8)) {
+            try (OutputStream w = Files.newOutputStream(scratch)) {
                 raw = rawMatrix.apply(w);
             }
             rawWritten.accept(scratch);

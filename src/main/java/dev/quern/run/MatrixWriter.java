@@ -7,7 +7,7 @@ import dev.quern.schema.ValueType;
 import dev.quern.sql.CompiledQuery;
 import java.io.IOException;
 import java.io.UncheckedIOException;
-import java.io.Writer;
+import java.io.OutputStream;
 import java.sql.Connection;
 import java.sql.ResultSet;
 import java.sql.SQLException;
@@ -40,10 +40,10 @@ public final class MatrixWriter {
     }
 
     /**
-     * Runs {@code query} and writes its rows to {@code out} as CSV, handing each record to {@code written}
+     * Runs {@code query} and writes its rows to {@code out} as CSV in UTF-8, handing each record to {@code written}
      * as it goes (the cells' text; the array is reused for the next record).
      */
-    public static RunResult write(CompiledQuery query, Connection connection, Writer out, Progress progress,
+    public static RunResult write(CompiledQuery query, Connection connection, OutputStream out, Progress progress,
                                   Consumer<String[]> written) {
         List<OutputColumn> columns = query.plan().columns();
         long started = System.nanoTime();

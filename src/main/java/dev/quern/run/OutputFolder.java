@@ -3,6 +3,7 @@ package dev.quern.run;
 import dev.quern.QuernException;
 import java.io.IOException;
 import java.io.UncheckedIOException;
+import java.io.OutputStream;
 import java.io.Writer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.AtomicMoveNotSupportedException;
@@ -47,6 +48,17 @@ public final class OutputFolder implements AutoCloseable {
             Path temp = Files.createTempFile(folder, "." + name + ".", ".tmp");
             pending.put(name, temp);
             return Files.newBufferedWriter(temp, StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw QuernException.output("cannot write in " + folder + ": " + e.getMessage(), e);
+        }
+    }
+
+    /** A stream of bytes to the temporary file that becomes {@code name} on commit; the caller buffers. */
+    public OutputStream openBytes(String name) {
+        try {
+            Path temp = Files.createTempFile(folder, "." + name + ".", ".tmp");
+            pending.put(name, temp);
+            return Files.newOutputStream(temp);
         } catch (IOException e) {
             throw QuernException.output("cannot write in " + folder + ": " + e.getMessage(), e);
         }

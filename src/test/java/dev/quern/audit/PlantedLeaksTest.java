@@ -12,8 +12,8 @@ import dev.quern.run.Progress;
 import dev.quern.sample.CycleClubGenerator;
 import dev.quern.testing.TestDatabase;
 import java.io.IOException;
+import java.io.OutputStream;
 import java.io.UncheckedIOException;
-import java.io.Writer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -425,7 +425,7 @@ class PlantedLeaksTest {
         try {
             Path matrix = Files.createTempFile(recipe.getParent(), "matrix-", ".csv");
             try (Connection connection = compilation.source().open();
-                 Writer out = Files.newBufferedWriter(matrix, StandardCharsets.UTF_8)) {
+                 OutputStream out = Files.newOutputStream(matrix)) {
                 MatrixWriter.write(compilation.query(), connection, out, Progress.SILENT, watch);
             }
             return matrix;

@@ -1,11 +1,14 @@
 package dev.quern.run;
 
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.io.StringWriter;
+import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.SplittableRandom;
@@ -20,7 +23,7 @@ class CsvRecordsTest {
             "!a", "\"", "\"a\"", "a\"b", "a,b", ",", "a\nb", "\n", "a\rb", "a\r\n", "\t", "a\t", "\ta", "a\tb",
             "é", "日本", "naïve", "-", "--", "-1", "-1.5", "+3", "1e-5", "0", "12.25", "NaN", "-Infinity", "$1",
             "%", "&", "'", "'a'", "(", "a;b", "2024-01-31", "2024-01-31 10:00:00", "a/b", "_x", ":x", "x:",
-            "A_b-9.0+z", "\u0000", "a\u0000", "\u001fa", "~", "{}", "\\", "a\\b", "\u00a0", "a\u00a0");
+            "A_b-9.0+z", "\u0000", "a\u0000", "\u001fa", "~", "{}", "\\", "a\\b", "\u00a0", "a\u00a0", "\uD83D\uDEB2", "a \uD83D\uDEB2");
 
     @Test
     void writesEveryAwkwardValueAsCsvPrinterDoesFirstInsideAndLast() throws IOException {
@@ -94,12 +97,12 @@ class CsvRecordsTest {
 
     @Test
     void numbersMarkedAsSuchAreWrittenAsTheyAre() throws IOException {
-        StringWriter out = new StringWriter();
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
         CsvRecords csv = new CsvRecords(out);
         csv.write(new String[] {"12.5", "", "a b", "-3"}, new boolean[] {true, false, false, true});
         csv.flush();
 
-        assertEquals("12.5,,a b,-3\n", out.toString());
+        assertEquals("12.5,,a b,-3\n", out.toString(StandardCharsets.UTF_8));
     }
 
     private static void assertSameAsCsvPrinter(List<String[]> records) throws IOException {
@@ -109,13 +112,14 @@ class CsvRecordsTest {
                 printer.printRecord((Object[]) r);
             }
         }
-        StringWriter actual = new StringWriter();
+        ByteArrayOutputStream actual = new ByteArrayOutputStream();
         CsvRecords csv = new CsvRecords(actual);
         for (String[] r : records) {
             csv.write(r);
         }
         csv.flush();
 
-        assertEquals(expected.toString(), actual.toString());
+        // The bytes of the file: commons-csv's characters in UTF-8.
+        assertArrayEquals(expected.toString().getBytes(StandardCharsets.UTF_8), actual.toByteArray());
     }
 }
