@@ -128,6 +128,8 @@ public final class MatrixWriter {
          */
         private final Object[] lastDate;
         private final String[] lastDateText;
+        /** Each decimal column's recent texts, on the formatting thread; null for other columns. */
+        private final DecimalTexts[] decimals;
         /** The number columns, and which cells of the record being written hold a number's text. */
         private final boolean[] numeric;
         private final boolean[] numberText;
@@ -143,6 +145,10 @@ public final class MatrixWriter {
             this.types = columns.stream().map(OutputColumn::type).toArray(ValueType[]::new);
             this.lastDate = new Object[types.length];
             this.lastDateText = new String[types.length];
+            this.decimals = new DecimalTexts[types.length];
+            for (int i = 0; i < types.length; i++) {
+                decimals[i] = types[i] == ValueType.DECIMAL ? new DecimalTexts() : null;
+            }
             this.numeric = new boolean[types.length];
             for (int i = 0; i < types.length; i++) {
                 numeric[i] = types[i].isNumber();
@@ -154,6 +160,10 @@ public final class MatrixWriter {
             for (int i = 0; i < record.length; i++) {
                 if (types[i] == ValueType.DATE && values[i] != null && values[i].equals(lastDate[i])) {
                     record[i] = lastDateText[i];
+                    continue;
+                }
+                if (decimals[i] != null && values[i] instanceof Double d) {
+                    record[i] = decimals[i].text(d);
                     continue;
                 }
                 try {
