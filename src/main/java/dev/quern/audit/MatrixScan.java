@@ -330,7 +330,7 @@ final class MatrixScan {
      * Keys of one cutoff as hashes; at the end of each cutoff, hashes seen twice become candidates, which a
      * second pass confirms by comparing the keys themselves, so a hash collision never reports a repeat.
      */
-    private static final class KeyRepeats {
+    static final class KeyRepeats {
         private long[] hashes = new long[1024];
         private int size;
         private String cutoff;
