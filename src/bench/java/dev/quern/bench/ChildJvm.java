@@ -15,17 +15,20 @@ import java.util.Properties;
 final class ChildJvm {
 
     private final String classPath;
-    /** The launcher's collector: every program timed gets it. */
-    private final List<String> collector;
-    /** The launcher's other options: only quern gets them (see {@link #quernOptions}). */
+    /** The launcher's collector and compile thresholds: every program timed gets them. */
+    private final List<String> shared;
+    /** The launcher's inlining options: only quern gets them (see {@link #quernOptions}). */
     private final List<String> quernOnly;
 
-    /** Runs classes from {@code classPath} with the collector of the {@code quern} launcher of {@code project}. */
+    /**
+     * Runs classes from {@code classPath} with the options of the {@code quern} launcher of {@code project},
+     * all but its inlining options.
+     */
     ChildJvm(String classPath, Path project) {
         this.classPath = classPath;
         List<String> launcher = launcherOptions(project.resolve("src/main/launcher/jvm.options"));
-        this.collector = launcher.stream().filter(ChildJvm::choosesCollector).toList();
-        this.quernOnly = launcher.stream().filter(o -> !choosesCollector(o)).toList();
+        this.shared = launcher.stream().filter(o -> !tunesInlining(o)).toList();
+        this.quernOnly = launcher.stream().filter(ChildJvm::tunesInlining).toList();
     }
 
     /** The options the launcher gives java: the file's lines, without comments and blank lines. */
@@ -38,13 +41,14 @@ final class ChildJvm {
         }
     }
 
-    private static boolean choosesCollector(String option) {
-        return option.startsWith("-XX:+Use") && option.endsWith("GC");
+    private static boolean tunesInlining(String option) {
+        return option.startsWith("-XX:FreqInlineSize=") || option.startsWith("-XX:InlineSmallCode=");
     }
 
     /**
-     * The launcher's options besides the collector, for quern's runs: they tune the compiler for quern's
-     * code and made the hand-written query's runner slower, so it runs without them.
+     * The launcher's inlining options, for quern's runs: they tune the compiler for quern's code and made the
+     * hand-written query's runner slower, so it runs without them. (The later compile thresholds made it a
+     * little faster, if anything: every program gets those.)
      */
     List<String> quernOptions() {
         return quernOnly;
@@ -64,9 +68,9 @@ final class ChildJvm {
     /** Runs {@code mainClass} as {@link #run(String, Path, String, List)} does, with more JVM options. */
     Outcome run(String maxHeap, List<String> jvmOptions, Path log, String mainClass, List<String> args) {
         Path report = log.resolveSibling(log.getFileName() + ".measured");
-        // The collector quern's launcher chooses for a batch job, for every program timed against it.
+        // The collector and compile thresholds quern's launcher chooses, for every program timed against it.
         List<String> command = new ArrayList<>(List.of(javaBinary(), "-Xmx" + maxHeap));
-        command.addAll(collector);
+        command.addAll(shared);
         command.addAll(List.of("-Dorg.jooq.no-logo=true", "-Dorg.jooq.no-tips=true"));
         command.addAll(jvmOptions);
         command.addAll(List.of("-cp", classPath, Measured.class.getName(), report.toString(), mainClass));
