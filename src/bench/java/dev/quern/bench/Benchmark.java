@@ -60,7 +60,8 @@ public final class Benchmark {
         if (repeat < 1) {
             throw new IllegalArgumentException("bench.repeat must be at least 1, not " + repeat);
         }
-        List<Measurement> results = new Benchmark(project, args[1], repeat).run(scales, seed);
+        List<Dataset.Engine> engines = engines(args.length > 5 ? args[5] : "sqlite,duckdb");
+        List<Measurement> results = new Benchmark(project, args[1], repeat).run(scales, seed, engines);
         Report report = new Report(results);
         Path json = project.resolve("target/bench/results.json");
         Files.writeString(json, report.json(), StandardCharsets.UTF_8);
@@ -69,7 +70,28 @@ public final class Benchmark {
         System.out.println("results: " + json);
     }
 
-    private List<Measurement> run(double[] scales, long seed) throws IOException {
+    /** The engines named in {@code list} (bench.engines), in the benchmark's order. */
+    private static List<Dataset.Engine> engines(String list) {
+        List<String> names = Arrays.stream(list.split(",")).map(String::strip).filter(s -> !s.isEmpty()).toList();
+        List<Dataset.Engine> engines = new ArrayList<>();
+        for (Dataset.Engine engine : Dataset.Engine.values()) {
+            if (names.contains(engine.label)) {
+                engines.add(engine);
+            }
+        }
+        List<String> known = Arrays.stream(Dataset.Engine.values()).map(e -> e.label).toList();
+        for (String name : names) {
+            if (!known.contains(name)) {
+                throw new IllegalArgumentException("bench.engines names " + name + ", not one of " + known);
+            }
+        }
+        if (engines.isEmpty()) {
+            throw new IllegalArgumentException("bench.engines names no engine; it takes " + known);
+        }
+        return engines;
+    }
+
+    private List<Measurement> run(double[] scales, long seed, List<Dataset.Engine> engines) throws IOException {
         Files.createDirectories(work.resolve("data"));
         // Archives from an earlier run may describe other jars; the JVM would ignore them without a word.
         try (var old = Files.list(Files.createDirectories(archives()))) {
@@ -80,7 +102,7 @@ public final class Benchmark {
         List<Measurement> results = new ArrayList<>();
         for (double scale : scales) {
             Dataset data = Dataset.prepare(scale, seed, work.resolve("data"), jvm);
-            for (Dataset.Engine engine : Dataset.Engine.values()) {
+            for (Dataset.Engine engine : engines) {
                 results.addAll(measure(data, engine));
             }
         }
