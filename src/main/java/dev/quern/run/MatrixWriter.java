@@ -6,8 +6,8 @@ import dev.quern.plan.Role;
 import dev.quern.schema.ValueType;
 import dev.quern.sql.CompiledQuery;
 import java.io.IOException;
-import java.io.UncheckedIOException;
 import java.io.OutputStream;
+import java.io.UncheckedIOException;
 import java.sql.Connection;
 import java.sql.ResultSet;
 import java.sql.SQLException;
@@ -146,11 +146,9 @@ public final class MatrixWriter {
             this.lastDate = new Object[types.length];
             this.lastDateText = new String[types.length];
             this.decimals = new DecimalTexts[types.length];
-            for (int i = 0; i < types.length; i++) {
-                decimals[i] = types[i] == ValueType.DECIMAL ? new DecimalTexts() : null;
-            }
             this.numeric = new boolean[types.length];
             for (int i = 0; i < types.length; i++) {
+                decimals[i] = types[i] == ValueType.DECIMAL ? new DecimalTexts() : null;
                 numeric[i] = types[i].isNumber();
             }
             this.numberText = new boolean[types.length];

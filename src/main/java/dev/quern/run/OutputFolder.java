@@ -2,8 +2,8 @@ package dev.quern.run;
 
 import dev.quern.QuernException;
 import java.io.IOException;
-import java.io.UncheckedIOException;
 import java.io.OutputStream;
+import java.io.UncheckedIOException;
 import java.io.Writer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.AtomicMoveNotSupportedException;
@@ -44,23 +44,21 @@ public final class OutputFolder implements AutoCloseable {
 
     /** A writer to the temporary file that becomes {@code name} on commit. */
     public Writer open(String name) {
+        Path temp = reserve(name);
         try {
-            Path temp = Files.createTempFile(folder, "." + name + ".", ".tmp");
-            pending.put(name, temp);
             return Files.newBufferedWriter(temp, StandardCharsets.UTF_8);
         } catch (IOException e) {
-            throw QuernException.output("cannot write in " + folder + ": " + e.getMessage(), e);
+            throw cannotWrite(e);
         }
     }
 
     /** A stream of bytes to the temporary file that becomes {@code name} on commit; the caller buffers. */
     public OutputStream openBytes(String name) {
+        Path temp = reserve(name);
         try {
-            Path temp = Files.createTempFile(folder, "." + name + ".", ".tmp");
-            pending.put(name, temp);
             return Files.newOutputStream(temp);
         } catch (IOException e) {
-            throw QuernException.output("cannot write in " + folder + ": " + e.getMessage(), e);
+            throw cannotWrite(e);
         }
     }
 
@@ -74,8 +72,12 @@ public final class OutputFolder implements AutoCloseable {
             pending.put(name, temp);
             return temp;
         } catch (IOException e) {
-            throw QuernException.output("cannot write in " + folder + ": " + e.getMessage(), e);
+            throw cannotWrite(e);
         }
+    }
+
+    private QuernException cannotWrite(IOException e) {
+        return QuernException.output("cannot write in " + folder + ": " + e.getMessage(), e);
     }
 
     /**
